@@ -1,0 +1,22 @@
+import type { Role } from './roles';
+
+/**
+ * Who may do what inside a studio: the single table every route handler,
+ * server action and page consults through `authorize`. Non-members never
+ * reach this table: they get 404 before it.
+ */
+export const POLICY = {
+  'studio.read': ['admin', 'producer', 'advisor', 'operator'],
+  'members.read': ['admin'],
+  'members.invite': ['admin'],
+  'members.update': ['admin'],
+  'members.remove': ['admin'],
+  'emails.read': ['admin'],
+  'audit.read': ['admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof POLICY;
+
+export function roleMay(role: Role, action: Action): boolean {
+  return (POLICY[action] as readonly Role[]).includes(role);
+}

@@ -1,0 +1,23 @@
+import 'server-only';
+import { User } from './User';
+import { Studio } from './Studio';
+import { Membership } from './Membership';
+import { Invitation } from './Invitation';
+import { EmailMessage } from './EmailMessage';
+import { AuditEvent } from './AuditEvent';
+import { SignInThrottle } from './SignInThrottle';
+
+// Associations live here, once, so every importer sees the same graph.
+if (!Membership.associations.user) {
+  User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
+  Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  Studio.hasMany(Membership, { foreignKey: 'studioId', as: 'memberships' });
+  Membership.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  Invitation.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
+  EmailMessage.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  AuditEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+}
+
+export { sequelize } from '@/lib/db/connection';
+export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle };

@@ -1,0 +1,12 @@
+/** The demo studio's accounts (README, Demo accounts); the password is the seeded default. */
+export const DEMO_PASSWORD = process.env.SKYWELL_DEMO_PASSWORD ?? 'skywell-demo-2026';
+export const DEMO_STUDIO_SLUG = 'saltmarsh-dome';
+export const demoEmail = (role: string) => `${role}@saltmarsh-dome.test`;
+
+/** Messages in the SMTP fake (maildev REST API) addressed to one person. */
+export async function mailTo(address: string): Promise<{ subject: string; text: string }[]> {
+  const base = process.env.SKYWELL_MAIL_FAKE_URL;
+  if (!base) throw new Error('SKYWELL_MAIL_FAKE_URL is not set: run through npm test');
+  const all = (await (await fetch(`${base}/api/email`)).json()) as { subject: string; text: string; to: { address: string }[] }[];
+  return all.filter((m) => m.to.some((t) => t.address === address));
+}

@@ -1,0 +1,92 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { assertTestDatabase, closeDatabase } from '../../support/db';
+import { makeMember, makeStudioWithCast, sessionCookie } from '../../support/factories';
+import { callRoute } from '../../support/route';
+import * as me from '@/app/api/v1/me/route';
+import * as members from '@/app/api/v1/studios/[studio]/members/route';
+import * as member from '@/app/api/v1/studios/[studio]/members/[memberId]/route';
+import * as invitations from '@/app/api/v1/studios/[studio]/invitations/route';
+import * as emails from '@/app/api/v1/studios/[studio]/emails/route';
+import * as auditEvents from '@/app/api/v1/studios/[studio]/audit-events/route';
+import * as accept from '@/app/api/v1/invitations/accept/route';
+
+// Every /api/v1 route x every role x a person from another studio x nobody.
+// The expected statuses are the product's role table (product.md, People and roles).
+type Who = 'admin' | 'producer' | 'advisor' | 'operator' | 'foreign' | 'anonymous';
+type Case = { studio: string; memberId: string };
+type Entry = {
+  file: string;
+  method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
+  handler: Parameters<typeof callRoute>[0];
+  params: (c: Case) => Record<string, string>;
+  body?: () => unknown;
+  expected: Record<Who, number>;
+};
+
+const adminOnly = (ok: number): Record<Who, number> => ({ admin: ok, producer: 403, advisor: 403, operator: 403, foreign: 404, anonymous: 401 });
+let counter = 0;
+
+const MATRIX: Entry[] = [
+  { file: 'me/route.ts', method: 'GET', handler: me.GET, params: () => ({}), expected: { admin: 200, producer: 200, advisor: 200, operator: 200, foreign: 200, anonymous: 401 } },
+  { file: 'studios/[studio]/members/route.ts', method: 'GET', handler: members.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
+  { file: 'studios/[studio]/members/[memberId]/route.ts', method: 'PATCH', handler: member.PATCH, params: (c) => ({ studio: c.studio, memberId: c.memberId }), body: () => ({ role: 'advisor' }), expected: adminOnly(200) },
+  { file: 'studios/[studio]/members/[memberId]/route.ts', method: 'DELETE', handler: member.DELETE, params: (c) => ({ studio: c.studio, memberId: c.memberId }), expected: adminOnly(204) },
+  { file: 'studios/[studio]/invitations/route.ts', method: 'GET', handler: invitations.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
+  { file: 'studios/[studio]/invitations/route.ts', method: 'POST', handler: invitations.POST, params: (c) => ({ studio: c.studio }), body: () => ({ email: `matrix-${++counter}-${Date.now()}@example.test`, role: 'operator' }), expected: adminOnly(201) },
+  { file: 'studios/[studio]/emails/route.ts', method: 'GET', handler: emails.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
+  { file: 'studios/[studio]/audit-events/route.ts', method: 'GET', handler: auditEvents.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
+  // Public by design: the token is the proof. An unknown token is 404 for everyone alike.
+  { file: 'invitations/accept/route.ts', method: 'POST', handler: accept.POST, params: () => ({}), body: () => ({ token: 'x'.repeat(43), password: 'long-enough-password' }), expected: { admin: 404, producer: 404, advisor: 404, operator: 404, foreign: 404, anonymous: 404 } },
+];
+
+let world: Awaited<ReturnType<typeof makeStudioWithCast>>;
+const cookies = {} as Record<Who, string | undefined>;
+
+beforeAll(async () => {
+  assertTestDatabase();
+  world = await makeStudioWithCast();
+  for (const role of ['admin', 'producer', 'advisor', 'operator'] as const) cookies[role] = await sessionCookie(world.cast[role].user);
+  cookies.foreign = await sessionCookie(world.foreigner.user);
+  cookies.anonymous = undefined;
+});
+afterAll(closeDatabase);
+
+describe('access-control matrix for /api/v1', () => {
+  it('should list every exported handler under app/api/v1', () => {
+    const root = path.resolve('app/api/v1');
+    const found: string[] = [];
+    const walk = (dir: string) => {
+      for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
+        const full = path.join(dir, entry.name);
+        if (entry.isDirectory()) walk(full);
+        else if (entry.name === 'route.ts') {
+          for (const m of fs.readFileSync(full, 'utf8').matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)) {
+            found.push(`${m[1]} ${path.relative(root, full)}`);
+          }
+        }
+      }
+    };
+    walk(root);
+    const covered = MATRIX.map((e) => `${e.method} ${e.file}`);
+    expect(found.sort()).toEqual([...new Set(covered)].sort());
+  });
+
+  for (const entry of MATRIX) {
+    for (const who of Object.keys(entry.expected) as Who[]) {
+      it(`should answer ${entry.expected[who]} to ${who} for ${entry.method} ${entry.file}`, async () => {
+        // A fresh disposable member per case, so role changes and removals do not affect other cases.
+        const target = await makeMember(world.studio, 'producer');
+        const studio = world.studio.slug; // the foreigner asks about a studio they do not belong to
+        const result = await callRoute(entry.handler, entry.method, `/api/v1/${entry.file}`, {
+          params: entry.params({ studio, memberId: target.membership.id }),
+          body: entry.body?.(),
+          cookie: cookies[who],
+        });
+        expect(result.status, JSON.stringify(result.json)).toBe(entry.expected[who]);
+        if (result.status >= 400) expect(result.contentType).toBe('application/problem+json');
+      });
+    }
+  }
+});

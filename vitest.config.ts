@@ -1,0 +1,22 @@
+import { defineConfig } from 'vitest/config';
+import path from 'node:path';
+
+// Unit tests need nothing running; integration tests expect the test cluster,
+// SMTP fake and object store that `npm test` (scripts/skywell.mjs) starts.
+export default defineConfig({
+  resolve: {
+    alias: {
+      '@': path.resolve(__dirname),
+      // "server-only" throws outside a React server bundle; under vitest it is a no-op.
+      'server-only': path.resolve(__dirname, 'tests/support/server-only-stub.ts'),
+    },
+  },
+  test: {
+    include: ['tests/**/*.test.ts'],
+    environment: 'node',
+    testTimeout: 30_000,
+    hookTimeout: 60_000,
+    fileParallelism: false,
+    pool: 'forks',
+  },
+});
