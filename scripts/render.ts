@@ -1,0 +1,53 @@
+/**
+ * Render one frame request to an image file on all cores:
+ *   npx tsx scripts/render.ts <request.json> <out.png|out.jpg> [--threads N]
+ * Prints progress and the time taken. The output format comes from the
+ * request's output.format (png8, png16, jpeg).
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import { renderFrameToImage } from '../lib/render/node/renderFrame';
+import { listNonPhysicalChoices, parseFrameRequest } from '../lib/render/schema';
+
+function usage(): never {
+  console.error('usage: npm run render -- <request.json> <out.png> [--threads N]');
+  process.exit(2);
+}
+
+async function main(): Promise<void> {
+  const args = process.argv.slice(2);
+  const threadsAt = args.indexOf('--threads');
+  let threads = os.availableParallelism();
+  if (threadsAt >= 0) {
+    threads = Number(args[threadsAt + 1]);
+    if (!Number.isInteger(threads) || threads < 0) usage();
+    args.splice(threadsAt, 2);
+  }
+  if (args.length !== 2) usage();
+  const [requestFile, outFile] = args;
+  const req = parseFrameRequest(JSON.parse(fs.readFileSync(requestFile, 'utf8')));
+  console.log(`rendering ${req.width} x ${req.height} ${req.projection.kind} on ${threads} thread(s)`);
+  for (const line of listNonPhysicalChoices(req)) console.log(`  note: ${line}`);
+  let lastShown = -1;
+  const result = await renderFrameToImage(req, {
+    threads,
+    onProgress: (fraction) => {
+      const pct = Math.floor(fraction * 100);
+      if (pct >= lastShown + 10 || pct === 100) {
+        lastShown = pct;
+        process.stdout.write(`  ${pct}%\n`);
+      }
+    },
+  });
+  fs.writeFileSync(outFile, result.bytes);
+  const t = result.timings;
+  console.log(
+    `wrote ${outFile} (${result.bytes.length} bytes) in ${t.totalS.toFixed(2)} s ` +
+      `(ray table ${t.tableS.toFixed(2)} s, pixels ${t.bandsS.toFixed(2)} s, encoding ${t.encodeS.toFixed(2)} s)`,
+  );
+}
+
+main().catch((err: unknown) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});
