@@ -6,6 +6,9 @@ import { Invitation } from './Invitation';
 import { EmailMessage } from './EmailMessage';
 import { AuditEvent } from './AuditEvent';
 import { SignInThrottle } from './SignInThrottle';
+import { Show } from './Show';
+import { Scene } from './Scene';
+import { SceneRevision } from './SceneRevision';
 
 // Associations live here, once, so every importer sees the same graph.
 if (!Membership.associations.user) {
@@ -17,7 +20,11 @@ if (!Membership.associations.user) {
   Invitation.belongsTo(User, { foreignKey: 'invitedById', as: 'invitedBy' });
   EmailMessage.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
   AuditEvent.belongsTo(User, { foreignKey: 'actorId', as: 'actor' });
+  Show.hasMany(Scene, { foreignKey: 'showId', as: 'scenes' });
+  Scene.belongsTo(Show, { foreignKey: 'showId', as: 'show' });
+  Scene.hasMany(SceneRevision, { foreignKey: 'sceneId', as: 'revisions' });
+  SceneRevision.belongsTo(Scene, { foreignKey: 'sceneId', as: 'scene' });
 }
 
 export { sequelize } from '@/lib/db/connection';
-export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle };
+export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle, Show, Scene, SceneRevision };

@@ -13,6 +13,11 @@ export const POLICY = {
   'members.remove': ['admin'],
   'emails.read': ['admin'],
   'audit.read': ['admin'],
+  'shows.read': ['admin', 'producer', 'advisor', 'operator'],
+  'shows.write': ['admin', 'producer'],
+  // Operators will read approved scenes once approvals exist (Reviews); until then scenes are closed to them.
+  'scenes.read': ['admin', 'producer', 'advisor'],
+  'scenes.write': ['admin', 'producer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -11,21 +11,38 @@ import * as invitations from '@/app/api/v1/studios/[studio]/invitations/route';
 import * as emails from '@/app/api/v1/studios/[studio]/emails/route';
 import * as auditEvents from '@/app/api/v1/studios/[studio]/audit-events/route';
 import * as accept from '@/app/api/v1/invitations/accept/route';
+import * as shows from '@/app/api/v1/studios/[studio]/shows/route';
+import * as show from '@/app/api/v1/studios/[studio]/shows/[showId]/route';
+import * as showScenes from '@/app/api/v1/studios/[studio]/shows/[showId]/scenes/route';
+import * as scene from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/route';
+import * as revisions from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revisions/route';
+import * as revision from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revisions/[number]/route';
+import * as readout from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revisions/[number]/readout/route';
+import * as diff from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/diff/route';
+import { createScene, createShow } from '@/lib/scenes/service';
+import { defaultSceneSpec } from '@/lib/scenes/defaults';
+import { sceneSpecSchema } from '@/lib/scenes/schema';
 
 // Every /api/v1 route x every role x a person from another studio x nobody.
 // The expected statuses are the product's role table (product.md, People and roles).
 type Who = 'admin' | 'producer' | 'advisor' | 'operator' | 'foreign' | 'anonymous';
-type Case = { studio: string; memberId: string };
+type Case = { studio: string; memberId: string; showId: string; sceneId: string };
 type Entry = {
   file: string;
   method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
   handler: Parameters<typeof callRoute>[0];
   params: (c: Case) => Record<string, string>;
   body?: () => unknown;
+  query?: Record<string, string>;
   expected: Record<Who, number>;
 };
 
 const adminOnly = (ok: number): Record<Who, number> => ({ admin: ok, producer: 403, advisor: 403, operator: 403, foreign: 404, anonymous: 401 });
+const everyMember = (ok: number): Record<Who, number> => ({ admin: ok, producer: ok, advisor: ok, operator: ok, foreign: 404, anonymous: 401 });
+const producers = (ok: number): Record<Who, number> => ({ admin: ok, producer: ok, advisor: 403, operator: 403, foreign: 404, anonymous: 401 });
+// Operators read approved scenes only; approvals do not exist yet, so scene content is closed to them.
+const sceneReaders = (ok: number): Record<Who, number> => ({ admin: ok, producer: ok, advisor: ok, operator: 403, foreign: 404, anonymous: 401 });
+const specBody = () => sceneSpecSchema.parse(defaultSceneSpec());
 let counter = 0;
 
 const MATRIX: Entry[] = [
@@ -37,6 +54,19 @@ const MATRIX: Entry[] = [
   { file: 'studios/[studio]/invitations/route.ts', method: 'POST', handler: invitations.POST, params: (c) => ({ studio: c.studio }), body: () => ({ email: `matrix-${++counter}-${Date.now()}@example.test`, role: 'operator' }), expected: adminOnly(201) },
   { file: 'studios/[studio]/emails/route.ts', method: 'GET', handler: emails.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
   { file: 'studios/[studio]/audit-events/route.ts', method: 'GET', handler: auditEvents.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
+  { file: 'studios/[studio]/shows/route.ts', method: 'GET', handler: shows.GET, params: (c) => ({ studio: c.studio }), expected: everyMember(200) },
+  { file: 'studios/[studio]/shows/route.ts', method: 'POST', handler: shows.POST, params: (c) => ({ studio: c.studio }), body: () => ({ name: 'Matrix show' }), expected: producers(201) },
+  { file: 'studios/[studio]/shows/[showId]/route.ts', method: 'GET', handler: show.GET, params: (c) => ({ studio: c.studio, showId: c.showId }), expected: everyMember(200) },
+  { file: 'studios/[studio]/shows/[showId]/route.ts', method: 'PATCH', handler: show.PATCH, params: (c) => ({ studio: c.studio, showId: c.showId }), body: () => ({ name: 'Renamed show' }), expected: producers(200) },
+  { file: 'studios/[studio]/shows/[showId]/scenes/route.ts', method: 'GET', handler: showScenes.GET, params: (c) => ({ studio: c.studio, showId: c.showId }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/shows/[showId]/scenes/route.ts', method: 'POST', handler: showScenes.POST, params: (c) => ({ studio: c.studio, showId: c.showId }), body: () => ({ name: 'Matrix scene' }), expected: producers(201) },
+  { file: 'studios/[studio]/scenes/[sceneId]/route.ts', method: 'GET', handler: scene.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/scenes/[sceneId]/route.ts', method: 'PATCH', handler: scene.PATCH, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), body: () => ({ archived: true }), expected: producers(200) },
+  { file: 'studios/[studio]/scenes/[sceneId]/revisions/route.ts', method: 'GET', handler: revisions.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/scenes/[sceneId]/revisions/route.ts', method: 'POST', handler: revisions.POST, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), body: () => ({ basedOn: 1, spec: specBody() }), expected: producers(201) },
+  { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/route.ts', method: 'GET', handler: revision.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/readout/route.ts', method: 'GET', handler: readout.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), query: { tau: '10' }, expected: sceneReaders(200) },
+  { file: 'studios/[studio]/scenes/[sceneId]/diff/route.ts', method: 'GET', handler: diff.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), query: { from: '1', to: '1' }, expected: sceneReaders(200) },
   // Public by design: the token is the proof. An unknown token is 404 for everyone alike.
   { file: 'invitations/accept/route.ts', method: 'POST', handler: accept.POST, params: () => ({}), body: () => ({ token: 'x'.repeat(43), password: 'long-enough-password' }), expected: { admin: 404, producer: 404, advisor: 404, operator: 404, foreign: 404, anonymous: 404 } },
 ];
@@ -78,10 +108,14 @@ describe('access-control matrix for /api/v1', () => {
       it(`should answer ${entry.expected[who]} to ${who} for ${entry.method} ${entry.file}`, async () => {
         // A fresh disposable member per case, so role changes and removals do not affect other cases.
         const target = await makeMember(world.studio, 'producer');
+        const owner = world.cast.producer.user.id;
+        const newShow = await createShow(world.studio.id, owner, 'Matrix show');
+        const { scene: newScene } = await createScene(world.studio.id, owner, newShow.id, 'Matrix scene', defaultSceneSpec());
         const studio = world.studio.slug; // the foreigner asks about a studio they do not belong to
         const result = await callRoute(entry.handler, entry.method, `/api/v1/${entry.file}`, {
-          params: entry.params({ studio, memberId: target.membership.id }),
+          params: entry.params({ studio, memberId: target.membership.id, showId: newShow.id, sceneId: newScene.id }),
           body: entry.body?.(),
+          query: entry.query,
           cookie: cookies[who],
         });
         expect(result.status, JSON.stringify(result.json)).toBe(entry.expected[who]);
