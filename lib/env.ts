@@ -25,6 +25,20 @@ const schema = z.object({
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   SKYWELL_DEMO_PASSWORD: z.string().min(10).default('skywell-demo-2026'),
   SKYWELL_MAIL_FAKE_URL: z.string().url().optional(),
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_BUCKET: z.string().min(3).default('skywell-frames'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_FORCE_PATH_STYLE: booleanFlag.default(true),
+  S3_PRESIGN_SECONDS: z.coerce.number().int().min(60).max(7 * 24 * 3600).default(900),
+  SKYWELL_WORKER_NAME: z.string().max(100).optional(),
+  QUEUE_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  RENDER_FRAME_TIMEOUT_SECONDS: z.coerce.number().int().min(5).max(24 * 3600).default(600),
+  RENDER_THREADS: z.coerce.number().int().min(1).max(256).optional(),
+  RENDER_MAX_SIDE_PX: z.coerce.number().int().min(16).max(8192).default(8192),
+  RENDER_MAX_FRAMES_PER_JOB: z.coerce.number().int().min(1).default(10_800),
+  RENDER_MAX_QUEUED_FRAMES_PER_STUDIO: z.coerce.number().int().min(1).default(20_000),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -9,6 +9,9 @@ import { SignInThrottle } from './SignInThrottle';
 import { Show } from './Show';
 import { Scene } from './Scene';
 import { SceneRevision } from './SceneRevision';
+import { RenderJob } from './RenderJob';
+import { Frame } from './Frame';
+import { Delivery } from './Delivery';
 
 // Associations live here, once, so every importer sees the same graph.
 if (!Membership.associations.user) {
@@ -24,7 +27,11 @@ if (!Membership.associations.user) {
   Scene.belongsTo(Show, { foreignKey: 'showId', as: 'show' });
   Scene.hasMany(SceneRevision, { foreignKey: 'sceneId', as: 'revisions' });
   SceneRevision.belongsTo(Scene, { foreignKey: 'sceneId', as: 'scene' });
+  RenderJob.belongsTo(Scene, { foreignKey: 'sceneId', as: 'scene' });
+  RenderJob.belongsTo(SceneRevision, { foreignKey: 'revisionId', as: 'revision' });
+  RenderJob.hasMany(Frame, { foreignKey: 'renderJobId', as: 'frames' });
+  Delivery.belongsTo(RenderJob, { foreignKey: 'renderJobId', as: 'renderJob' });
 }
 
 export { sequelize } from '@/lib/db/connection';
-export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle, Show, Scene, SceneRevision };
+export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle, Show, Scene, SceneRevision, RenderJob, Frame, Delivery };

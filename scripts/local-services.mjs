@@ -174,3 +174,16 @@ export async function startMailFake({ smtpPort, webPort, mailDir }) {
   log(`SMTP fake on 127.0.0.1:${smtpPort}, its inbox at http://127.0.0.1:${webPort}`);
   return child;
 }
+
+/** Starts the S3 fake (s3rver) on loopback with its data in `dataDir`; returns the child. */
+export async function startObjectStoreFake({ port, dataDir }) {
+  fs.mkdirSync(dataDir, { recursive: true });
+  const child = spawn(
+    process.execPath,
+    ['node_modules/s3rver/bin/s3rver.js', '-d', dataDir, '-a', '127.0.0.1', '-p', String(port), '--silent', '--no-vhost-buckets'],
+    { stdio: ['ignore', 'ignore', 'inherit'] },
+  );
+  await waitForPort(port, 'the S3 fake (s3rver)');
+  log(`S3 fake on http://127.0.0.1:${port} (data in ${dataDir})`);
+  return child;
+}

@@ -8,7 +8,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import {
-  ensureChromium, fail, log, run, startMailFake, startPostgres, waitForPort,
+  ensureChromium, fail, log, run, startMailFake, startObjectStoreFake, startPostgres, waitForPort,
 } from './local-services.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -20,8 +20,9 @@ const env = process.env;
 
 // Local defaults; test runs get their own cluster, ports and database.
 const local = isTest
-  ? { dataDir: '.data/test', pgPort: Number(env.SKYWELL_TEST_PG_PORT ?? 54339), smtpPort: 54335, mailWebPort: 54390, appPort: Number(env.SKYWELL_TEST_APP_PORT ?? 3100), database: 'skywell_test' }
-  : { dataDir: '.data', pgPort: Number(env.SKYWELL_PG_PORT ?? 54329), smtpPort: Number(env.SKYWELL_SMTP_PORT ?? 54325), mailWebPort: Number(env.SKYWELL_MAIL_WEB_PORT ?? 54380), appPort: Number(env.PORT ?? 3000), database: 'skywell' };
+  ? { dataDir: '.data/test', pgPort: Number(env.SKYWELL_TEST_PG_PORT ?? 54339), smtpPort: 54335, mailWebPort: 54390, s3Port: 54336, appPort: Number(env.SKYWELL_TEST_APP_PORT ?? 3100), database: 'skywell_test' }
+  : { dataDir: '.data', pgPort: Number(env.SKYWELL_PG_PORT ?? 54329), smtpPort: Number(env.SKYWELL_SMTP_PORT ?? 54325), mailWebPort: Number(env.SKYWELL_MAIL_WEB_PORT ?? 54380), s3Port: Number(env.SKYWELL_S3_PORT ?? 54326), appPort: Number(env.PORT ?? 3000), database: 'skywell' };
+const WORKERS = Number(env.SKYWELL_WORKERS ?? 1);
 const PG_USER = 'skywell';
 const PG_PASSWORD = env.SKYWELL_PG_PASSWORD ?? 'skywell-local-only';
 
@@ -107,6 +108,12 @@ async function prepareServices() {
       SKYWELL_MAIL_FAKE_URL: `http://127.0.0.1:${local.mailWebPort}`,
     });
   }
+  if (!env.S3_ENDPOINT || isTest) {
+    const s3Dir = path.join(local.dataDir, 's3');
+    if (isTest) fs.rmSync(s3Dir, { recursive: true, force: true }); // each test run starts with an empty store
+    children.push(await startObjectStoreFake({ port: local.s3Port, dataDir: s3Dir }));
+    Object.assign(childEnv, { S3_ENDPOINT: `http://127.0.0.1:${local.s3Port}`, S3_ACCESS_KEY_ID: 'S3RVER', S3_SECRET_ACCESS_KEY: 'S3RVER', S3_FORCE_PATH_STYLE: 'true' });
+  }
   childEnv.PORT = String(local.appPort);
   childEnv.NEXTAUTH_URL = env.NEXTAUTH_URL && !isTest ? env.NEXTAUTH_URL : `http://localhost:${local.appPort}`;
   childEnv.APP_URL = env.APP_URL && !isTest ? env.APP_URL : childEnv.NEXTAUTH_URL;
@@ -117,6 +124,7 @@ async function prepareServices() {
   }
   tsx(['scripts/db.ts', 'migrate'], childEnv);
   tsx(['scripts/db.ts', 'seed'], childEnv);
+  tsx(['scripts/storage.ts', 'ensure-bucket'], childEnv);
   return childEnv;
 }
 
@@ -128,6 +136,9 @@ async function serve(dev) {
   } else {
     buildIfNeeded(childEnv);
     spawnChild(['node_modules/next/dist/bin/next', 'start', '-H', host, '-p', String(local.appPort)], childEnv, 'next start');
+  }
+  for (let i = 0; i < WORKERS; i++) {
+    spawnChild(['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], { ...childEnv, SKYWELL_WORKER_NAME: `local-${i + 1}` }, `render worker ${i + 1}`);
   }
   await waitForPort(local.appPort, 'the app', 120_000);
   log(`Skywell is ready at http://localhost:${local.appPort}  (Ctrl-C stops everything it started)`);
@@ -175,5 +186,6 @@ switch (command) {
   case 'dev': await serve(true); break;
   case 'test': await test(); break;
   case 'bench': bench(); break;
+  case 'worker': spawnChild(['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], { ...env }, 'render worker'); break;
   default: fail(`unknown command '${command}': use start, dev, test or bench`);
 }

@@ -18,6 +18,10 @@ export const POLICY = {
   // Operators will read approved scenes once approvals exist (Reviews); until then scenes are closed to them.
   'scenes.read': ['admin', 'producer', 'advisor'],
   'scenes.write': ['admin', 'producer'],
+  'renders.read': ['admin', 'producer', 'advisor'],
+  'renders.create': ['admin', 'producer'],
+  'deliveries.read': ['admin', 'producer', 'advisor', 'operator'],
+  'deliveries.mark-loaded': ['admin', 'operator'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -22,11 +22,24 @@ import * as diff from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/diff/route
 import { createScene, createShow } from '@/lib/scenes/service';
 import { defaultSceneSpec } from '@/lib/scenes/defaults';
 import { sceneSpecSchema } from '@/lib/scenes/schema';
+import * as renders from '@/app/api/v1/studios/[studio]/renders/route';
+import * as render from '@/app/api/v1/studios/[studio]/renders/[renderId]/route';
+import * as renderCancel from '@/app/api/v1/studios/[studio]/renders/[renderId]/cancel/route';
+import * as renderRetry from '@/app/api/v1/studios/[studio]/renders/[renderId]/retry/route';
+import * as renderFrame from '@/app/api/v1/studios/[studio]/renders/[renderId]/frames/[index]/route';
+import * as deliveries from '@/app/api/v1/studios/[studio]/deliveries/route';
+import * as delivery from '@/app/api/v1/studios/[studio]/deliveries/[deliveryId]/route';
+import * as deliveryDownload from '@/app/api/v1/studios/[studio]/deliveries/[deliveryId]/download/route';
+import * as deliveryLoaded from '@/app/api/v1/studios/[studio]/deliveries/[deliveryId]/loaded/route';
+import { makeRenderWithDelivery } from '../../support/render-factories';
+import { ensureBucket } from '@/lib/storage/s3';
+import { stopQueue } from '@/lib/queue/boss';
+import { RenderJob } from '@/models';
 
 // Every /api/v1 route x every role x a person from another studio x nobody.
 // The expected statuses are the product's role table (product.md, People and roles).
 type Who = 'admin' | 'producer' | 'advisor' | 'operator' | 'foreign' | 'anonymous';
-type Case = { studio: string; memberId: string; showId: string; sceneId: string };
+type Case = { studio: string; memberId: string; showId: string; sceneId: string; renderId: string; deliveryId: string };
 type Entry = {
   file: string;
   method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
@@ -67,6 +80,16 @@ const MATRIX: Entry[] = [
   { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/route.ts', method: 'GET', handler: revision.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), expected: sceneReaders(200) },
   { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/readout/route.ts', method: 'GET', handler: readout.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), query: { tau: '10' }, expected: sceneReaders(200) },
   { file: 'studios/[studio]/scenes/[sceneId]/diff/route.ts', method: 'GET', handler: diff.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), query: { from: '1', to: '1' }, expected: sceneReaders(200) },
+  { file: 'studios/[studio]/renders/route.ts', method: 'GET', handler: renders.GET, params: (c) => ({ studio: c.studio }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/renders/route.ts', method: 'POST', handler: renders.POST, params: (c) => ({ studio: c.studio }), body: () => 'still-request', expected: producers(201) },
+  { file: 'studios/[studio]/renders/[renderId]/route.ts', method: 'GET', handler: render.GET, params: (c) => ({ studio: c.studio, renderId: c.renderId }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/renders/[renderId]/cancel/route.ts', method: 'POST', handler: renderCancel.POST, params: (c) => ({ studio: c.studio, renderId: c.renderId }), expected: producers(200) },
+  { file: 'studios/[studio]/renders/[renderId]/retry/route.ts', method: 'POST', handler: renderRetry.POST, params: (c) => ({ studio: c.studio, renderId: c.renderId }), expected: producers(200) },
+  { file: 'studios/[studio]/renders/[renderId]/frames/[index]/route.ts', method: 'GET', handler: renderFrame.GET, params: (c) => ({ studio: c.studio, renderId: c.renderId, index: '0' }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/deliveries/route.ts', method: 'GET', handler: deliveries.GET, params: (c) => ({ studio: c.studio }), expected: everyMember(200) },
+  { file: 'studios/[studio]/deliveries/[deliveryId]/route.ts', method: 'GET', handler: delivery.GET, params: (c) => ({ studio: c.studio, deliveryId: c.deliveryId }), expected: everyMember(200) },
+  { file: 'studios/[studio]/deliveries/[deliveryId]/download/route.ts', method: 'GET', handler: deliveryDownload.GET, params: (c) => ({ studio: c.studio, deliveryId: c.deliveryId }), expected: everyMember(200) },
+  { file: 'studios/[studio]/deliveries/[deliveryId]/loaded/route.ts', method: 'POST', handler: deliveryLoaded.POST, params: (c) => ({ studio: c.studio, deliveryId: c.deliveryId }), expected: { admin: 200, producer: 403, advisor: 403, operator: 200, foreign: 404, anonymous: 401 } },
   // Public by design: the token is the proof. An unknown token is 404 for everyone alike.
   { file: 'invitations/accept/route.ts', method: 'POST', handler: accept.POST, params: () => ({}), body: () => ({ token: 'x'.repeat(43), password: 'long-enough-password' }), expected: { admin: 404, producer: 404, advisor: 404, operator: 404, foreign: 404, anonymous: 404 } },
 ];
@@ -76,12 +99,18 @@ const cookies = {} as Record<Who, string | undefined>;
 
 beforeAll(async () => {
   assertTestDatabase();
+  await ensureBucket();
   world = await makeStudioWithCast();
   for (const role of ['admin', 'producer', 'advisor', 'operator'] as const) cookies[role] = await sessionCookie(world.cast[role].user);
   cookies.foreign = await sessionCookie(world.foreigner.user);
   cookies.anonymous = undefined;
 });
-afterAll(closeDatabase);
+afterAll(async () => {
+  // Renders requested by the matrix are cancelled so no worker picks them up later.
+  await RenderJob.update({ status: 'cancelled' }, { where: { studioId: world.studio.id, status: 'queued' } });
+  await stopQueue();
+  await closeDatabase();
+});
 
 describe('access-control matrix for /api/v1', () => {
   it('should list every exported handler under app/api/v1', () => {
@@ -111,10 +140,14 @@ describe('access-control matrix for /api/v1', () => {
         const owner = world.cast.producer.user.id;
         const newShow = await createShow(world.studio.id, owner, 'Matrix show');
         const { scene: newScene } = await createScene(world.studio.id, owner, newShow.id, 'Matrix scene', defaultSceneSpec());
+        const fixtures = entry.file.includes('renders/[renderId]') || entry.file.includes('deliveries/[deliveryId]')
+          ? await makeRenderWithDelivery(world.studio, newScene.id, owner, entry.file.includes('/cancel/') ? 'running' : 'cancelled')
+          : null;
         const studio = world.studio.slug; // the foreigner asks about a studio they do not belong to
+        const body = entry.body?.();
         const result = await callRoute(entry.handler, entry.method, `/api/v1/${entry.file}`, {
-          params: entry.params({ studio, memberId: target.membership.id, showId: newShow.id, sceneId: newScene.id }),
-          body: entry.body?.(),
+          params: entry.params({ studio, memberId: target.membership.id, showId: newShow.id, sceneId: newScene.id, renderId: fixtures?.job.id ?? '', deliveryId: fixtures?.delivery.id ?? '' }),
+          body: body === 'still-request' ? { sceneId: newScene.id, revision: 1, kind: 'still', settings: { width: 16, height: 16 } } : body,
           query: entry.query,
           cookie: cookies[who],
         });

@@ -26,7 +26,11 @@ describe('start-up set-up (migrate + seed), as a second npm start runs it', () =
   it('should have seeded the demo studio with one account per role', async () => {
     const studio = await Studio.findOne({ where: { slug: DEMO_STUDIO.slug } });
     expect(studio?.name).toBe('Saltmarsh Dome');
-    const roles = await Membership.findAll({ where: { studioId: studio!.id } });
-    expect(roles.map((m) => m.role).sort()).toEqual(['admin', 'advisor', 'operator', 'producer']);
+    for (const account of DEMO_ACCOUNTS) {
+      const user = await User.findOne({ where: { email: account.email } });
+      const membership = await Membership.findOne({ where: { studioId: studio!.id, userId: user!.id } });
+      expect(membership?.role, account.email).toBe(account.role);
+    }
+    expect(DEMO_ACCOUNTS.map((a) => a.role).sort()).toEqual(['admin', 'advisor', 'operator', 'producer']);
   });
 });

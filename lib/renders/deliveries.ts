@@ -1,0 +1,45 @@
+import 'server-only';
+import { notFound, conflict } from '@/lib/errors';
+import { audit } from '@/lib/studio/audit';
+import { Delivery, Frame } from '@/models';
+
+export type DeliveryView = { id: string; renderId: string; scene: string; show: string; revision: number; approved: boolean; frames: number; frameRate: number; resolution: string; projection: string; photosensitivity: string; status: string; loadedAt: string | null; createdAt: string };
+
+function view(d: Delivery): DeliveryView {
+  const m = d.manifest;
+  return {
+    id: d.id, renderId: d.renderJobId, scene: m.scene.name, show: m.scene.show, revision: m.revision.number, approved: m.revision.approved,
+    frames: m.frames.length, frameRate: m.frameRate, resolution: `${m.resolution.width}x${m.resolution.height}`, projection: String(m.projection.kind),
+    photosensitivity: String((m.photosensitivity as { verdict?: string })?.verdict ?? 'unknown'), status: d.status, loadedAt: d.loadedAt?.toISOString() ?? null, createdAt: d.createdAt.toISOString(),
+  };
+}
+
+export async function listDeliveries(studioId: string): Promise<DeliveryView[]> {
+  return (await Delivery.findAll({ where: { studioId }, order: [['createdAt', 'DESC']] })).map(view);
+}
+
+export async function findDelivery(studioId: string, deliveryId: string): Promise<Delivery> {
+  const delivery = await Delivery.findOne({ where: { id: deliveryId, studioId } });
+  if (!delivery) throw notFound('Delivery');
+  return delivery;
+}
+
+export async function deliveryDetail(studioId: string, deliveryId: string) {
+  const delivery = await findDelivery(studioId, deliveryId);
+  return { delivery: view(delivery), manifest: delivery.manifest };
+}
+
+/** Object keys of a delivery's frames, in manifest order. */
+export async function deliveryObjectKeys(delivery: Delivery): Promise<string[]> {
+  const frames = await Frame.findAll({ where: { renderJobId: delivery.renderJobId }, attributes: ['index', 'objectKey'] });
+  const byIndex = new Map(frames.map((f) => [f.index, f.objectKey]));
+  return delivery.manifest.frames.map((f) => byIndex.get(f.index)!);
+}
+
+export async function markLoaded(studioId: string, actorId: string, deliveryId: string): Promise<DeliveryView> {
+  const delivery = await findDelivery(studioId, deliveryId);
+  if (delivery.status === 'loaded') throw conflict('This delivery is already marked as loaded.');
+  await delivery.update({ status: 'loaded', loadedAt: new Date(), loadedById: actorId });
+  await audit({ studioId, actorId, action: 'delivery.loaded', targetType: 'delivery', targetId: deliveryId });
+  return view(delivery);
+}
