@@ -12,6 +12,9 @@ import { SceneRevision } from './SceneRevision';
 import { RenderJob } from './RenderJob';
 import { Frame } from './Frame';
 import { Delivery } from './Delivery';
+import { Review } from './Review';
+import { ReviewNote } from './ReviewNote';
+import { Approval } from './Approval';
 
 // Associations live here, once, so every importer sees the same graph.
 if (!Membership.associations.user) {
@@ -31,7 +34,12 @@ if (!Membership.associations.user) {
   RenderJob.belongsTo(SceneRevision, { foreignKey: 'revisionId', as: 'revision' });
   RenderJob.hasMany(Frame, { foreignKey: 'renderJobId', as: 'frames' });
   Delivery.belongsTo(RenderJob, { foreignKey: 'renderJobId', as: 'renderJob' });
+  Review.belongsTo(Scene, { foreignKey: 'sceneId', as: 'scene' });
+  Review.belongsTo(SceneRevision, { foreignKey: 'revisionId', as: 'revision' });
+  Review.hasMany(ReviewNote, { foreignKey: 'reviewId', as: 'notes' });
+  ReviewNote.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  Approval.belongsTo(User, { foreignKey: 'approvedById', as: 'approvedBy' });
 }
 
 export { sequelize } from '@/lib/db/connection';
-export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle, Show, Scene, SceneRevision, RenderJob, Frame, Delivery };
+export { User, Studio, Membership, Invitation, EmailMessage, AuditEvent, SignInThrottle, Show, Scene, SceneRevision, RenderJob, Frame, Delivery, Review, ReviewNote, Approval };

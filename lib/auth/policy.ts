@@ -22,6 +22,11 @@ export const POLICY = {
   'renders.create': ['admin', 'producer'],
   'deliveries.read': ['admin', 'producer', 'advisor', 'operator'],
   'deliveries.mark-loaded': ['admin', 'operator'],
+  'reviews.read': ['admin', 'producer', 'advisor'],
+  'reviews.submit': ['admin', 'producer'],
+  // Producers and admins reply in threads; only advisors pin new notes (checked in lib/reviews).
+  'reviews.comment': ['admin', 'producer', 'advisor'],
+  'reviews.decide': ['advisor'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -5,6 +5,7 @@ import { env } from '@/lib/env';
 import { badRequest, conflict, notFound, tooManyRequests } from '@/lib/errors';
 import { queue, RENDER_FRAME_QUEUE, type RenderFrameJob } from '@/lib/queue/boss';
 import { findRevision, findScene } from '@/lib/scenes/service';
+import { approvalOf } from '@/lib/reviews/service';
 import { audit } from '@/lib/studio/audit';
 import { Frame, RenderJob, sequelize } from '@/models';
 import { sequenceFrameCount } from './frames';
@@ -71,9 +72,11 @@ export async function requestRender(studioId: string, actorId: string, request: 
   if (waiting + count > env.RENDER_MAX_QUEUED_FRAMES_PER_STUDIO) {
     throw tooManyRequests(`The studio already has ${waiting} frames queued; at most ${env.RENDER_MAX_QUEUED_FRAMES_PER_STUDIO} may wait at once (RENDER_MAX_QUEUED_FRAMES_PER_STUDIO). Wait for renders to finish or cancel one.`);
   }
+  const approved = (await approvalOf(revision.id)) !== null;
   const job = await sequelize.transaction(async (transaction) => {
     const created = await RenderJob.create(
-      { studioId, sceneId: scene.id, revisionId: revision.id, kind: request.kind, settings: request.settings, frameStart: start, frameCount: count, photosensitivity: null, error: null, requestedById: actorId, startedAt: null, finishedAt: null },
+      // A render of an unapproved revision is a draft: marked so in its manifest, never a final delivery.
+      { studioId, sceneId: scene.id, revisionId: revision.id, kind: request.kind, settings: request.settings, frameStart: start, frameCount: count, draft: !approved, photosensitivity: null, error: null, requestedById: actorId, startedAt: null, finishedAt: null },
       { transaction },
     );
     await audit({ studioId, actorId, action: 'render.requested', targetType: 'render_job', targetId: created.id, data: { sceneId: scene.id, revision: revision.number, kind: request.kind, frames: [start, end] } }, transaction);

@@ -34,12 +34,18 @@ import * as deliveryLoaded from '@/app/api/v1/studios/[studio]/deliveries/[deliv
 import { makeRenderWithDelivery } from '../../support/render-factories';
 import { ensureBucket } from '@/lib/storage/s3';
 import { stopQueue } from '@/lib/queue/boss';
-import { RenderJob } from '@/models';
+import { RenderJob, Review, ReviewNote, SceneRevision } from '@/models';
+import * as reviewsRoute from '@/app/api/v1/studios/[studio]/reviews/route';
+import * as reviewRoute from '@/app/api/v1/studios/[studio]/reviews/[reviewId]/route';
+import * as reviewNotes from '@/app/api/v1/studios/[studio]/reviews/[reviewId]/notes/route';
+import * as reviewNote from '@/app/api/v1/studios/[studio]/reviews/[reviewId]/notes/[noteId]/route';
+import * as reviewApprove from '@/app/api/v1/studios/[studio]/reviews/[reviewId]/approve/route';
+import * as reviewChanges from '@/app/api/v1/studios/[studio]/reviews/[reviewId]/request-changes/route';
 
 // Every /api/v1 route x every role x a person from another studio x nobody.
 // The expected statuses are the product's role table (product.md, People and roles).
 type Who = 'admin' | 'producer' | 'advisor' | 'operator' | 'foreign' | 'anonymous';
-type Case = { studio: string; memberId: string; showId: string; sceneId: string; renderId: string; deliveryId: string };
+type Case = { studio: string; memberId: string; showId: string; sceneId: string; renderId: string; deliveryId: string; reviewId: string; noteId: string };
 type Entry = {
   file: string;
   method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
@@ -55,6 +61,7 @@ const everyMember = (ok: number): Record<Who, number> => ({ admin: ok, producer:
 const producers = (ok: number): Record<Who, number> => ({ admin: ok, producer: ok, advisor: 403, operator: 403, foreign: 404, anonymous: 401 });
 // Operators read approved scenes only; approvals do not exist yet, so scene content is closed to them.
 const sceneReaders = (ok: number): Record<Who, number> => ({ admin: ok, producer: ok, advisor: ok, operator: 403, foreign: 404, anonymous: 401 });
+const advisorsOnly = (ok: number): Record<Who, number> => ({ admin: 403, producer: 403, advisor: ok, operator: 403, foreign: 404, anonymous: 401 });
 const specBody = () => sceneSpecSchema.parse(defaultSceneSpec());
 let counter = 0;
 
@@ -90,10 +97,19 @@ const MATRIX: Entry[] = [
   { file: 'studios/[studio]/deliveries/[deliveryId]/route.ts', method: 'GET', handler: delivery.GET, params: (c) => ({ studio: c.studio, deliveryId: c.deliveryId }), expected: everyMember(200) },
   { file: 'studios/[studio]/deliveries/[deliveryId]/download/route.ts', method: 'GET', handler: deliveryDownload.GET, params: (c) => ({ studio: c.studio, deliveryId: c.deliveryId }), expected: everyMember(200) },
   { file: 'studios/[studio]/deliveries/[deliveryId]/loaded/route.ts', method: 'POST', handler: deliveryLoaded.POST, params: (c) => ({ studio: c.studio, deliveryId: c.deliveryId }), expected: { admin: 200, producer: 403, advisor: 403, operator: 200, foreign: 404, anonymous: 401 } },
+  { file: 'studios/[studio]/reviews/route.ts', method: 'GET', handler: reviewsRoute.GET, params: (c) => ({ studio: c.studio }), expected: sceneReaders(200) },
+  { file: 'studios/[studio]/reviews/route.ts', method: 'POST', handler: reviewsRoute.POST, params: (c) => ({ studio: c.studio }), body: () => 'review-request', expected: producers(201) },
+  { file: 'studios/[studio]/reviews/[reviewId]/route.ts', method: 'GET', handler: reviewRoute.GET, params: (c) => ({ studio: c.studio, reviewId: c.reviewId }), expected: sceneReaders(200) },
+  // Only advisors pin new notes and decide; producers and admins reply in threads (tests/integration/api/reviews.test.ts).
+  { file: 'studios/[studio]/reviews/[reviewId]/notes/route.ts', method: 'POST', handler: reviewNotes.POST, params: (c) => ({ studio: c.studio, reviewId: c.reviewId }), body: () => ({ body: 'Check the ring radius here.', tau: 10 }), expected: advisorsOnly(201) },
+  { file: 'studios/[studio]/reviews/[reviewId]/notes/[noteId]/route.ts', method: 'PATCH', handler: reviewNote.PATCH, params: (c) => ({ studio: c.studio, reviewId: c.reviewId, noteId: c.noteId }), body: () => ({ status: 'resolved' }), expected: advisorsOnly(200) },
+  { file: 'studios/[studio]/reviews/[reviewId]/approve/route.ts', method: 'POST', handler: reviewApprove.POST, params: (c) => ({ studio: c.studio, reviewId: c.reviewId }), expected: advisorsOnly(201) },
+  { file: 'studios/[studio]/reviews/[reviewId]/request-changes/route.ts', method: 'POST', handler: reviewChanges.POST, params: (c) => ({ studio: c.studio, reviewId: c.reviewId }), body: () => ({ message: 'Slower, please.' }), expected: advisorsOnly(200) },
   // Public by design: the token is the proof. An unknown token is 404 for everyone alike.
   { file: 'invitations/accept/route.ts', method: 'POST', handler: accept.POST, params: () => ({}), body: () => ({ token: 'x'.repeat(43), password: 'long-enough-password' }), expected: { admin: 404, producer: 404, advisor: 404, operator: 404, foreign: 404, anonymous: 404 } },
 ];
 
+const revisionOne = async (sceneId: string) => (await SceneRevision.findOne({ where: { sceneId, number: 1 } }))!;
 let world: Awaited<ReturnType<typeof makeStudioWithCast>>;
 const cookies = {} as Record<Who, string | undefined>;
 
@@ -143,10 +159,17 @@ describe('access-control matrix for /api/v1', () => {
         const fixtures = entry.file.includes('renders/[renderId]') || entry.file.includes('deliveries/[deliveryId]')
           ? await makeRenderWithDelivery(world.studio, newScene.id, owner, entry.file.includes('/cancel/') ? 'running' : 'cancelled')
           : null;
+        const reviewFixture = entry.file.includes('reviews/[reviewId]')
+          ? await Review.create({ studioId: world.studio.id, sceneId: newScene.id, revisionId: (await revisionOne(newScene.id)).id, advisorIds: [], message: null, submittedById: owner, decidedById: null, decidedAt: null, decisionNote: null })
+          : null;
+        const noteFixture = reviewFixture && entry.file.includes('[noteId]')
+          ? await ReviewNote.create({ studioId: world.studio.id, reviewId: reviewFixture.id, parentId: null, authorId: world.cast.advisor.user.id, tau: 1, pointX: null, pointY: null, body: 'Fixture note', statusChangedById: null })
+          : null;
         const studio = world.studio.slug; // the foreigner asks about a studio they do not belong to
-        const body = entry.body?.();
+        const raw = entry.body?.();
+        const body = raw === 'review-request' ? { sceneId: newScene.id, revision: 1 } : raw;
         const result = await callRoute(entry.handler, entry.method, `/api/v1/${entry.file}`, {
-          params: entry.params({ studio, memberId: target.membership.id, showId: newShow.id, sceneId: newScene.id, renderId: fixtures?.job.id ?? '', deliveryId: fixtures?.delivery.id ?? '' }),
+          params: entry.params({ studio, memberId: target.membership.id, showId: newShow.id, sceneId: newScene.id, renderId: fixtures?.job.id ?? '', deliveryId: fixtures?.delivery.id ?? '', reviewId: reviewFixture?.id ?? '', noteId: noteFixture?.id ?? '' }),
           body: body === 'still-request' ? { sceneId: newScene.id, revision: 1, kind: 'still', settings: { width: 16, height: 16 } } : body,
           query: entry.query,
           cookie: cookies[who],
