@@ -20,7 +20,7 @@ const env = process.env;
 
 // Local defaults; test runs get their own cluster, ports and database.
 const local = isTest
-  ? { dataDir: '.data/test', pgPort: Number(env.SKYWELL_TEST_PG_PORT ?? 54339), smtpPort: 54335, mailWebPort: 54390, s3Port: 54336, appPort: Number(env.SKYWELL_TEST_APP_PORT ?? 3100), database: 'skywell_test' }
+  ? { dataDir: '.data/test', pgPort: Number(env.SKYWELL_TEST_PG_PORT ?? 54339), smtpPort: Number(env.SKYWELL_TEST_SMTP_PORT ?? 54335), mailWebPort: Number(env.SKYWELL_TEST_MAIL_WEB_PORT ?? 54390), s3Port: Number(env.SKYWELL_TEST_S3_PORT ?? 54336), appPort: Number(env.SKYWELL_TEST_APP_PORT ?? 3100), database: 'skywell_test' }
   : { dataDir: '.data', pgPort: Number(env.SKYWELL_PG_PORT ?? 54329), smtpPort: Number(env.SKYWELL_SMTP_PORT ?? 54325), mailWebPort: Number(env.SKYWELL_MAIL_WEB_PORT ?? 54380), s3Port: Number(env.SKYWELL_S3_PORT ?? 54326), appPort: Number(env.PORT ?? 3000), database: 'skywell' };
 const WORKERS = Number(env.SKYWELL_WORKERS ?? 1);
 const PG_USER = 'skywell';
