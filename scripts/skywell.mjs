@@ -15,11 +15,14 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 process.chdir(root);
 
 const command = process.argv[2] ?? 'start';
-const isTest = command === 'test';
+const isTest = command === 'test' || command === 'bench';
+const isBench = command === 'bench';
 const env = process.env;
 
 // Local defaults; test runs get their own cluster, ports and database.
-const local = isTest
+const local = isBench
+  ? { dataDir: '.data/bench', pgPort: 54369, smtpPort: 54365, mailWebPort: 54396, s3Port: 54366, appPort: 3190, database: 'skywell_test' }
+  : isTest
   ? { dataDir: '.data/test', pgPort: Number(env.SKYWELL_TEST_PG_PORT ?? 54339), smtpPort: Number(env.SKYWELL_TEST_SMTP_PORT ?? 54335), mailWebPort: Number(env.SKYWELL_TEST_MAIL_WEB_PORT ?? 54390), s3Port: Number(env.SKYWELL_TEST_S3_PORT ?? 54336), appPort: Number(env.SKYWELL_TEST_APP_PORT ?? 3100), database: 'skywell_test' }
   : { dataDir: '.data', pgPort: Number(env.SKYWELL_PG_PORT ?? 54329), smtpPort: Number(env.SKYWELL_SMTP_PORT ?? 54325), mailWebPort: Number(env.SKYWELL_MAIL_WEB_PORT ?? 54380), s3Port: Number(env.SKYWELL_S3_PORT ?? 54326), appPort: Number(env.PORT ?? 3000), database: 'skywell' };
 const WORKERS = Number(env.SKYWELL_WORKERS ?? 1);
@@ -172,22 +175,24 @@ async function test() {
   stopAll(failed.length ? 1 : 0);
 }
 
-function bench() {
-  ensureNodeModules();
+async function bench() {
+  // Benches that need the database and object store get their own set, like tests.
+  const childEnv = await prepareServices();
   const dir = path.join('tests', 'bench');
   const files = fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith('.bench.ts')).sort() : [];
   if (!files.length) fail('no benchmarks found under tests/bench/*.bench.ts');
   for (const file of files) {
     log(`bench: ${file}`);
-    tsx([path.join(dir, file)], { ...env });
+    tsx([path.join(dir, file)], childEnv);
   }
+  stopAll(0);
 }
 
 switch (command) {
   case 'start': await serve(false); break;
   case 'dev': await serve(true); break;
   case 'test': await test(); break;
-  case 'bench': bench(); break;
+  case 'bench': await bench(); break;
   case 'worker': spawnChild(['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], { ...env }, 'render worker'); break;
   default: fail(`unknown command '${command}': use start, dev, test or bench`);
 }
