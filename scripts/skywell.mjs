@@ -33,15 +33,20 @@ const children = [];
 const cleanups = [];
 let stopping = false;
 
-function stopAll(code) {
+/** Stops every process this command started (synchronous, so it also runs on exit after a failure). */
+function stopServices() {
   if (stopping) return;
   stopping = true;
   for (const child of children) if (child.exitCode === null) child.kill('SIGTERM');
   for (const cleanup of cleanups.reverse()) cleanup();
+}
+function stopAll(code) {
+  stopServices();
   process.exit(code);
 }
 process.on('SIGINT', () => stopAll(130));
 process.on('SIGTERM', () => stopAll(143));
+process.on('exit', stopServices);
 
 function ensureNodeModules() {
   const marker = path.join('node_modules', '.package-lock.json');
