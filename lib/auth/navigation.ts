@@ -7,10 +7,10 @@ export type NavItem = { label: string; segment: string; roles: readonly Role[]; 
  * whose pages have not been built yet; they are shown as such, not linked.
  */
 export const NAV_ITEMS: readonly NavItem[] = [
-  { label: 'Shows', segment: 'shows', roles: ['admin', 'producer', 'advisor', 'operator'], available: false, purpose: 'Shows and their scenes' },
-  { label: 'Reviews', segment: 'reviews', roles: ['admin', 'producer', 'advisor'], available: false, purpose: 'Scene revisions awaiting an advisor' },
-  { label: 'Renders', segment: 'renders', roles: ['admin', 'producer', 'advisor'], available: false, purpose: 'Stills and frame sequences in progress' },
-  { label: 'Deliveries', segment: 'deliveries', roles: ['admin', 'producer', 'advisor', 'operator'], available: false, purpose: 'Frame packages for show operators' },
+  { label: 'Shows', segment: 'shows', roles: ['admin', 'producer', 'advisor', 'operator'], available: true, purpose: 'Shows and their scenes' },
+  { label: 'Reviews', segment: 'reviews', roles: ['admin', 'producer', 'advisor'], available: true, purpose: 'Scene revisions awaiting an advisor' },
+  { label: 'Renders', segment: 'renders', roles: ['admin', 'producer', 'advisor'], available: true, purpose: 'Stills and frame sequences in progress' },
+  { label: 'Deliveries', segment: 'deliveries', roles: ['admin', 'producer', 'advisor', 'operator'], available: true, purpose: 'Frame packages for show operators' },
   { label: 'Library', segment: 'library', roles: ['admin', 'producer', 'advisor'], available: false, purpose: 'Sky panoramas and star catalogues' },
   { label: 'Studio', segment: 'studio', roles: ['admin'], available: true, purpose: 'Members, invitations and sent e-mail' },
 ];
