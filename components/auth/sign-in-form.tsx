@@ -4,7 +4,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import { useRouter, useSearchParams } from 'next/navigation';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { Field, TextInput } from '@/components/ui/field';
@@ -26,6 +26,9 @@ export function SignInForm() {
   const params = useSearchParams();
   const [error, setError] = useState<string | null>(params.get('error') ? MESSAGES.invalid : null);
   const { register, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(schema) });
+  // Lets tests (and impatient people) know the form is interactive: before hydration a submit would be a plain GET.
+  const [hydrated, setHydrated] = useState(false);
+  useEffect(() => setHydrated(true), []);
 
   async function onSubmit(values: Values) {
     setError(null);
@@ -40,7 +43,7 @@ export function SignInForm() {
   }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate data-testid="sign-in-form">
+    <form onSubmit={handleSubmit(onSubmit)} method="post" className="space-y-4" noValidate data-testid="sign-in-form" data-hydrated={hydrated}>
       {params.get('joined') ? <Alert>Your account is ready. Sign in with your new password.</Alert> : null}
       {error ? <Alert tone="error" testId="sign-in-error">{error}</Alert> : null}
       <Field id="email" label="E-mail" error={formState.errors.email?.message}>
