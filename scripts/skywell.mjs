@@ -75,7 +75,8 @@ function buildIfNeeded(childEnv) {
     log('production build is up to date');
     return;
   }
-  log('building the app (next build)');
+  log('building the app (shaders, then next build)');
+  run(process.execPath, ['scripts/build-shaders.mjs']);
   run(process.execPath, ['node_modules/next/dist/bin/next', 'build'], { env: { ...childEnv, NEXT_TELEMETRY_DISABLED: '1' } });
 }
 

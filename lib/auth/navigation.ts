@@ -11,6 +11,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Reviews', segment: 'reviews', roles: ['admin', 'producer', 'advisor'], available: true, purpose: 'Scene revisions awaiting an advisor' },
   { label: 'Renders', segment: 'renders', roles: ['admin', 'producer', 'advisor'], available: true, purpose: 'Stills and frame sequences in progress' },
   { label: 'Deliveries', segment: 'deliveries', roles: ['admin', 'producer', 'advisor', 'operator'], available: true, purpose: 'Frame packages for show operators' },
+  { label: 'Sky view', segment: 'sky-view', roles: ['admin', 'producer', 'advisor'], available: true, purpose: 'Live lensed sky for framing and inspection (WebGL, CPU fallback)' },
   { label: 'Library', segment: 'library', roles: ['admin', 'producer', 'advisor'], available: false, purpose: 'Sky panoramas and star catalogues' },
   { label: 'Studio', segment: 'studio', roles: ['admin'], available: true, purpose: 'Members, invitations and sent e-mail' },
 ];

@@ -4,9 +4,9 @@ import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
 
 // The navigation each role should see (product.md, People and roles; lib/auth/navigation.ts).
 const EXPECTED_NAV: Record<string, string[]> = {
-  admin: ['Shows', 'Reviews', 'Renders', 'Deliveries', 'Library', 'Studio'],
-  producer: ['Shows', 'Reviews', 'Renders', 'Deliveries', 'Library'],
-  advisor: ['Shows', 'Reviews', 'Renders', 'Deliveries', 'Library'],
+  admin: ['Shows', 'Reviews', 'Renders', 'Deliveries', 'Sky view', 'Library', 'Studio'],
+  producer: ['Shows', 'Reviews', 'Renders', 'Deliveries', 'Sky view', 'Library'],
+  advisor: ['Shows', 'Reviews', 'Renders', 'Deliveries', 'Sky view', 'Library'],
   operator: ['Shows', 'Deliveries'],
 };
 

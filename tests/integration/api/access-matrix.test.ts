@@ -5,6 +5,7 @@ import { assertTestDatabase, closeDatabase } from '../../support/db';
 import { makeMember, makeStudioWithCast, sessionCookie } from '../../support/factories';
 import { callRoute } from '../../support/route';
 import * as me from '@/app/api/v1/me/route';
+import * as skyAssets from '@/app/api/v1/sky-assets/[name]/route';
 import * as members from '@/app/api/v1/studios/[studio]/members/route';
 import * as member from '@/app/api/v1/studios/[studio]/members/[memberId]/route';
 import * as invitations from '@/app/api/v1/studios/[studio]/invitations/route';
@@ -66,6 +67,8 @@ const specBody = () => sceneSpecSchema.parse(defaultSceneSpec());
 let counter = 0;
 
 const MATRIX: Entry[] = [
+  // Star catalogue and Milky Way map for the browser's renderers: any signed-in person, no studio data.
+  { file: 'sky-assets/[name]/route.ts', method: 'GET', handler: skyAssets.GET, params: () => ({ name: 'milky-way' }), expected: { admin: 200, producer: 200, advisor: 200, operator: 200, foreign: 200, anonymous: 401 } },
   { file: 'me/route.ts', method: 'GET', handler: me.GET, params: () => ({}), expected: { admin: 200, producer: 200, advisor: 200, operator: 200, foreign: 200, anonymous: 401 } },
   { file: 'studios/[studio]/members/route.ts', method: 'GET', handler: members.GET, params: (c) => ({ studio: c.studio }), expected: adminOnly(200) },
   { file: 'studios/[studio]/members/[memberId]/route.ts', method: 'PATCH', handler: member.PATCH, params: (c) => ({ studio: c.studio, memberId: c.memberId }), body: () => ({ role: 'advisor' }), expected: adminOnly(200) },

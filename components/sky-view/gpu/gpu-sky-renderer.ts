@@ -1,0 +1,281 @@
+/**
+ * The WebGL twin of lib/render: one full-frame quad drawn with
+ * shaders/sky.lensed.frag (the picture) or shaders/sky.directions.frag (the
+ * "where the light comes from" debug target, float RGBA). Per frame the CPU
+ * side (lib/webgl prepareGpuFrame) builds the ray table and constants; this
+ * class only moves them into uniforms and textures and draws. No React here,
+ * so the benchmark page uses it too.
+ */
+import * as THREE from 'three';
+import type { FrameRequest } from '@/lib/render/schema';
+import { prepareGpuFrame, type GpuFrame, type GridUniforms } from '@/lib/webgl/gpuFrame';
+import { MAX_RAY_TABLE_SEGMENTS } from '@/lib/webgl/rayTableTexture';
+import { CELESTIAL_GRID } from '@/lib/webgl/sourceDirections';
+import { SKY_DIRECTIONS_FRAG, SKY_FULLSCREEN_VERT, SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
+import { MILKY_WAY_TEMPERATURE_K } from '@/lib/render/milkyWay';
+import { hexToLinear } from '@/lib/render/shade';
+import { colourTexture, dataTexture, diffuseTexture, RayTableTexture, starTextures, type StarGpuTextures } from './sky-textures';
+import type { GpuSkyData } from './sky-data';
+
+/** Display mode: the picture, or the picture with the celestial grid drawn through the lensing. */
+export type SkyViewMode = 'image' | 'sources';
+
+const ARCSEC_RAD = Math.PI / 648000;
+
+function mat3(m: Float64Array): THREE.Matrix3 {
+  return new THREE.Matrix3().set(m[0], m[1], m[2], m[3], m[4], m[5], m[6], m[7], m[8]);
+}
+
+function gridVec(grid: GridUniforms): THREE.Vector4 {
+  return new THREE.Vector4(grid.enabled ? 1 : 0, grid.spacingRad, grid.lineWidthPx, grid.dashed ? 1 : 0);
+}
+
+function colourVec(c: ArrayLike<number>): THREE.Vector3 {
+  return new THREE.Vector3(c[0], c[1], c[2]);
+}
+
+/** Draws frames of a request on a three.js renderer. */
+export class GpuSkyRenderer {
+  private readonly scene = new THREE.Scene();
+  private readonly camera = new THREE.OrthographicCamera(-1, 1, 1, -1, 0, 1);
+  private readonly mesh: THREE.Mesh;
+  private readonly lensed: THREE.RawShaderMaterial;
+  private readonly directions: THREE.RawShaderMaterial;
+  private readonly uniforms: Record<string, THREE.IUniform>;
+  private readonly rayTable = new RayTableTexture();
+  private readonly placeholder = dataTexture({ width: 1, height: 1, channels: 4, data: new Float32Array(4) });
+  private sky: { data: GpuSkyData; stars: StarGpuTextures | null; diffuse: THREE.DataTexture | null; colour: THREE.DataTexture } | null = null;
+  private last: GpuFrame | undefined;
+  private lastKey = '';
+
+  constructor(private readonly gl: THREE.WebGLRenderer) {
+    const segA = new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4);
+    const segB = new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4);
+    this.uniforms = {
+      uFrameSizePx: { value: new THREE.Vector2(1, 1) },
+      uProjectionKind: { value: 0 },
+      uFocalPx: { value: 1 },
+      uRadPerPx: { value: 0 },
+      uHalfApertureRad: { value: 0 },
+      uCubeFace: { value: new THREE.Matrix3() },
+      uViewToCamera: { value: new THREE.Matrix3() },
+      uCameraToHole: { value: new THREE.Matrix3() },
+      uBoostVelocity: { value: new THREE.Vector3() },
+      uLensing: { value: true },
+      uEps: { value: 1 },
+      uUr: { value: 0 },
+      uSegmentCount: { value: 1 },
+      uSegA: { value: segA },
+      uSegB: { value: segB },
+      uRayTable: { value: this.rayTable.texture },
+      uSupersampling: { value: 1 },
+      uColourShift: { value: true },
+      uBeaming: { value: true },
+      uExposureScale: { value: 1e-3 },
+      uToneMap: { value: 2 },
+      uColourTable: { value: this.placeholder },
+      uColourLogMinK: { value: 0 },
+      uColourLogSpan: { value: 1 },
+      uStarsEnabled: { value: false },
+      uStarGain: { value: 1 },
+      uPsfSigmaPx: { value: 0.8 },
+      uSourceSizeRad: { value: 5 * ARCSEC_RAD },
+      uStarPosFlux: { value: this.placeholder },
+      uStarLogT: { value: this.placeholder },
+      uCellStart: { value: this.placeholder },
+      uMaxRun: { value: 0 },
+      uDiffuseEnabled: { value: false },
+      uDiffuse: { value: this.placeholder },
+      uDiffuseTexelRad: { value: Math.PI / 512 },
+      uMilkyWayEnabled: { value: false },
+      uMilkyWayGain: { value: 1 },
+      uMilkyWayLogT: { value: Math.log(MILKY_WAY_TEMPERATURE_K) },
+      uUniformBrightness: { value: 0 },
+      uUniformTemperatureK: { value: 6500 },
+      uHorizonGrid: { value: new THREE.Vector4() },
+      uFarSideGrid: { value: new THREE.Vector4() },
+      uCelestialGrid: { value: new THREE.Vector4() },
+      uHorizonColour: { value: new THREE.Vector3() },
+      uFarSideColour: { value: new THREE.Vector3() },
+      uCelestialColour: { value: colourVec(hexToLinear(CELESTIAL_GRID.colour)) },
+    };
+    const common = { uniforms: this.uniforms, vertexShader: SKY_FULLSCREEN_VERT, glslVersion: THREE.GLSL3, depthTest: false, depthWrite: false };
+    this.lensed = new THREE.RawShaderMaterial({ ...common, fragmentShader: SKY_LENSED_FRAG });
+    this.directions = new THREE.RawShaderMaterial({ ...common, fragmentShader: SKY_DIRECTIONS_FRAG });
+    this.mesh = new THREE.Mesh(new THREE.PlaneGeometry(2, 2), this.lensed);
+    this.mesh.frustumCulled = false;
+    this.scene.add(this.mesh);
+  }
+
+  /** Hand over the sky data (stars, diffuse map, colour table); replaces earlier data. */
+  setSky(data: GpuSkyData): void {
+    if (this.sky?.data === data) return;
+    this.disposeSky();
+    this.sky = {
+      data,
+      stars: data.stars ? starTextures(data.stars) : null,
+      diffuse: data.diffuse ? diffuseTexture(data.diffuse) : null,
+      colour: colourTexture(data.colour),
+    };
+    const u = this.uniforms;
+    u.uColourTable.value = this.sky.colour;
+    u.uColourLogMinK.value = data.colour.logMinK;
+    u.uColourLogSpan.value = data.colour.logSpan;
+    u.uStarPosFlux.value = this.sky.stars?.positionFlux ?? this.placeholder;
+    u.uStarLogT.value = this.sky.stars?.logTemperature ?? this.placeholder;
+    u.uCellStart.value = this.sky.stars?.cellStart ?? this.placeholder;
+    u.uMaxRun.value = this.sky.stars?.maxRun ?? 0;
+    u.uDiffuse.value = this.sky.diffuse ?? this.placeholder;
+    u.uDiffuseTexelRad.value = data.diffuse?.texelRad ?? Math.PI / 512;
+    this.lastKey = '';
+  }
+
+  /**
+   * Update the uniforms for a request (the ray table is rebuilt only when the camera state changes).
+   * @returns milliseconds spent building the ray table (0 when reused)
+   */
+  prepare(req: FrameRequest, mode: SkyViewMode): number {
+    const key = JSON.stringify([req.camera.state, req.effects.lensing]);
+    let buildMs = 0;
+    let fresh = false;
+    if (key !== this.lastKey || !this.last) {
+      this.last = prepareGpuFrame(req, this.last);
+      buildMs = this.last.tableBuildMs;
+      this.lastKey = key;
+      fresh = true;
+    } else {
+      // camera state unchanged: keep the table, refresh the rest
+      const table = this.last.table;
+      this.last = { ...prepareGpuFrameWithoutTable(req), table, tableBuildMs: 0 };
+    }
+    this.applyFrame(this.last, req, mode, fresh);
+    return buildMs;
+  }
+
+  private applyFrame(frame: GpuFrame, req: FrameRequest, mode: SkyViewMode, freshTable: boolean): void {
+    const u = this.uniforms;
+    const p = frame.projection;
+    (u.uFrameSizePx.value as THREE.Vector2).set(frame.width, frame.height);
+    u.uProjectionKind.value = p.kind;
+    u.uFocalPx.value = p.focalPx;
+    u.uRadPerPx.value = p.radPerPx;
+    u.uHalfApertureRad.value = p.halfApertureRad;
+    u.uCubeFace.value = mat3(p.cubeFace);
+    u.uViewToCamera.value = mat3(frame.viewToCamera);
+    u.uCameraToHole.value = mat3(frame.cameraToHole);
+    (u.uBoostVelocity.value as THREE.Vector3).set(frame.boostVelocity[0], frame.boostVelocity[1], frame.boostVelocity[2]);
+    u.uLensing.value = frame.lensing;
+    if (frame.table) {
+      u.uEps.value = frame.table.eps;
+      u.uUr.value = frame.table.ur;
+      u.uSegmentCount.value = frame.table.segmentCount;
+      (u.uSegA.value as Float32Array).set(frame.table.segmentA);
+      (u.uSegB.value as Float32Array).set(frame.table.segmentB);
+      if (freshTable) {
+        this.rayTable.update(frame.table);
+        u.uRayTable.value = this.rayTable.texture;
+      }
+    }
+    u.uSupersampling.value = frame.supersampling;
+    u.uColourShift.value = frame.colourShift;
+    u.uBeaming.value = frame.beaming;
+    u.uExposureScale.value = frame.exposureScale;
+    u.uToneMap.value = frame.toneMap;
+    const stars = req.sky.stars;
+    u.uStarsEnabled.value = stars.enabled && !!this.sky?.stars;
+    u.uStarGain.value = stars.gain;
+    u.uPsfSigmaPx.value = stars.psfSigmaPx;
+    u.uSourceSizeRad.value = stars.sourceSizeArcsec * ARCSEC_RAD;
+    u.uDiffuseEnabled.value = !!this.sky?.diffuse;
+    u.uMilkyWayEnabled.value = req.sky.milkyWay.enabled && !!this.sky?.data.hasMilkyWay;
+    u.uMilkyWayGain.value = req.sky.milkyWay.gain;
+    u.uUniformBrightness.value = req.sky.uniform?.brightness ?? 0;
+    u.uUniformTemperatureK.value = req.sky.uniform?.temperatureK ?? 6500;
+    u.uHorizonGrid.value = gridVec(frame.horizonGrid);
+    u.uFarSideGrid.value = gridVec(frame.farSideGrid);
+    u.uHorizonColour.value = colourVec(frame.horizonGrid.colour);
+    u.uFarSideColour.value = colourVec(frame.farSideGrid.colour);
+    u.uCelestialGrid.value = new THREE.Vector4(mode === 'sources' ? 1 : 0, (CELESTIAL_GRID.spacingDeg * Math.PI) / 180, CELESTIAL_GRID.lineWidthPx, 0);
+  }
+
+  /** Draw the picture to the canvas (or a render target). */
+  draw(target: THREE.WebGLRenderTarget | null = null): void {
+    this.mesh.material = this.lensed;
+    this.gl.setRenderTarget(target);
+    this.gl.render(this.scene, this.camera);
+    this.gl.setRenderTarget(null);
+  }
+
+  /**
+   * Render the picture into an 8-bit target and read it back.
+   * @returns RGBA bytes, rows from the top of the frame
+   */
+  readFrame(req: FrameRequest, mode: SkyViewMode): Uint8Array {
+    this.prepare(req, mode);
+    const target = new THREE.WebGLRenderTarget(req.width, req.height, { type: THREE.UnsignedByteType, format: THREE.RGBAFormat, depthBuffer: false });
+    try {
+      this.draw(target);
+      const pixels = new Uint8Array(req.width * req.height * 4);
+      this.gl.readRenderTargetPixels(target, 0, 0, req.width, req.height, pixels);
+      return flipRows(pixels, req.width, req.height, 4);
+    } finally {
+      target.dispose();
+    }
+  }
+
+  /**
+   * Render the "where the light comes from" target (float RGBA: hole-frame direction, fate) and read it back.
+   * @returns 4 floats per pixel, rows from the top of the frame
+   */
+  readDirections(req: FrameRequest): Float32Array {
+    this.prepare(req, 'sources');
+    const target = new THREE.WebGLRenderTarget(req.width, req.height, { type: THREE.FloatType, format: THREE.RGBAFormat, depthBuffer: false });
+    try {
+      this.mesh.material = this.directions;
+      this.gl.setRenderTarget(target);
+      this.gl.render(this.scene, this.camera);
+      this.gl.setRenderTarget(null);
+      this.mesh.material = this.lensed;
+      const out = new Float32Array(req.width * req.height * 4);
+      this.gl.readRenderTargetPixels(target, 0, 0, req.width, req.height, out);
+      return flipRows(out, req.width, req.height, 4);
+    } finally {
+      target.dispose();
+    }
+  }
+
+  private disposeSky(): void {
+    if (!this.sky) return;
+    this.sky.colour.dispose();
+    this.sky.diffuse?.dispose();
+    if (this.sky.stars) {
+      this.sky.stars.positionFlux.dispose();
+      this.sky.stars.logTemperature.dispose();
+      this.sky.stars.cellStart.dispose();
+    }
+    this.sky = null;
+  }
+
+  /** Free GPU resources. */
+  dispose(): void {
+    this.disposeSky();
+    this.rayTable.dispose();
+    this.placeholder.dispose();
+    this.lensed.dispose();
+    this.directions.dispose();
+    this.mesh.geometry.dispose();
+  }
+}
+
+/** prepareGpuFrame minus the ray table (lensing switched off in the copy so no table is built). */
+function prepareGpuFrameWithoutTable(req: FrameRequest): GpuFrame {
+  const frame = prepareGpuFrame({ ...req, effects: { ...req.effects, lensing: false } });
+  return { ...frame, lensing: req.effects.lensing };
+}
+
+function flipRows<T extends Uint8Array | Float32Array>(data: T, width: number, height: number, channels: number): T {
+  const row = width * channels;
+  const out = new (data.constructor as { new (n: number): T })(data.length);
+  for (let y = 0; y < height; y++) out.set(data.subarray((height - 1 - y) * row, (height - y) * row), y * row);
+  return out;
+}

@@ -1,0 +1,90 @@
+'use client';
+/**
+ * The WebGL path: a @react-three/fiber canvas of exactly the request's size whose
+ * one render pass (GpuSkyRenderer) draws shaders/sky.lensed.frag. Frames are
+ * drawn on demand, when the request, mode or sky data change.
+ */
+import { useEffect, useMemo, useState } from 'react';
+import { Canvas, useFrame, useThree } from '@react-three/fiber';
+import type { FrameRequest } from '@/lib/render/schema';
+import { GpuSkyRenderer, type SkyViewMode } from './gpu/gpu-sky-renderer';
+import { buildGpuSkyData, type GpuSkyData } from './gpu/sky-data';
+import { loadSkyAssets } from './sky-assets';
+import { publishDebugHandle, toBase64 } from './debug-handle';
+
+interface WebGlSkyProps {
+  request: FrameRequest;
+  mode: SkyViewMode;
+  assetBase: string;
+  /** called when the context is lost or the sky data cannot be loaded */
+  onFailure: (reason: string) => void;
+  onFrame?: (info: { tableBuildMs: number }) => void;
+}
+
+function SkyPass({ request, mode, sky, onFrame }: { request: FrameRequest; mode: SkyViewMode; sky: GpuSkyData; onFrame?: WebGlSkyProps['onFrame'] }) {
+  const gl = useThree((s) => s.gl);
+  const invalidate = useThree((s) => s.invalidate);
+  const renderer = useMemo(() => new GpuSkyRenderer(gl), [gl]);
+  useEffect(() => () => renderer.dispose(), [renderer]);
+  useEffect(() => {
+    renderer.setSky(sky);
+    invalidate();
+  }, [renderer, sky, invalidate]);
+  useEffect(() => invalidate(), [request, mode, invalidate]);
+  useEffect(
+    () =>
+      publishDebugHandle({
+        path: 'webgl',
+        request,
+        readFrame: async () => toBase64(renderer.readFrame(request, mode)),
+        readDirections: async () => toBase64(renderer.readDirections(request)),
+      }),
+    [renderer, request, mode],
+  );
+  // priority 1: this pass replaces r3f's own scene render
+  useFrame(() => {
+    const tableBuildMs = renderer.prepare(request, mode);
+    renderer.draw();
+    onFrame?.({ tableBuildMs });
+  }, 1);
+  return null;
+}
+
+/** The lensed sky drawn by the GPU. */
+export function WebGlSky({ request, mode, assetBase, onFailure, onFrame }: WebGlSkyProps) {
+  const [sky, setSky] = useState<GpuSkyData | null>(null);
+  const limit = request.sky.stars.magnitudeLimit;
+  useEffect(() => {
+    let live = true;
+    loadSkyAssets(assetBase).then(
+      (assets) => live && setSky(buildGpuSkyData(assets.catalogue, assets.milkyWay, limit)),
+      (error: unknown) => live && onFailure(`sky data could not be loaded (${error instanceof Error ? error.message : String(error)})`),
+    );
+    return () => {
+      live = false;
+    };
+  }, [assetBase, limit, onFailure]);
+  return (
+    <div style={{ width: request.width, height: request.height }} data-testid="sky-view-webgl" data-ready={sky ? 'true' : 'false'}>
+      {sky ? (
+        <Canvas
+          frameloop="demand"
+          dpr={1}
+          flat
+          linear
+          gl={{ antialias: false, alpha: false, preserveDrawingBuffer: true, powerPreference: 'high-performance' }}
+          onCreated={({ gl }) => {
+            gl.domElement.addEventListener('webglcontextlost', (event) => {
+              event.preventDefault();
+              onFailure('the WebGL context was lost');
+            });
+          }}
+        >
+          <SkyPass request={request} mode={mode} sky={sky} onFrame={onFrame} />
+        </Canvas>
+      ) : (
+        <p className="p-4 text-sm text-slate-400">Loading sky data…</p>
+      )}
+    </div>
+  );
+}
