@@ -166,7 +166,7 @@ async function test() {
   buildIfNeeded(childEnv);
   spawnChild(['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(local.appPort)], childEnv, 'next start (test)');
   // One render worker for the browser tests (the integration tests start and kill their own).
-  spawnChild(['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], { ...childEnv, SKYWELL_WORKER_NAME: 'e2e' }, 'render worker (test)');
+  spawnChild(['--conditions=react-server', '--import', 'tsx', 'scripts/worker.ts'], { ...childEnv, SKYWELL_WORKER_NAME: 'e2e', RENDER_THREADS: '1' }, 'render worker (test)');
   await waitForPort(local.appPort, 'the app (test)', 120_000);
 
   log('browser tests (Playwright in Debian Chromium)');
