@@ -1,5 +1,7 @@
 import 'server-only';
+import { literal, Op } from 'sequelize';
 import { notFound, conflict } from '@/lib/errors';
+import type { Role } from '@/lib/auth/roles';
 import { audit } from '@/lib/studio/audit';
 import { Delivery, Frame } from '@/models';
 
@@ -14,18 +16,25 @@ function view(d: Delivery): DeliveryView {
   };
 }
 
-export async function listDeliveries(studioId: string): Promise<DeliveryView[]> {
-  return (await Delivery.findAll({ where: { studioId }, order: [['createdAt', 'DESC']] })).map(view);
+/**
+ * Operators only ever see packages of approved revisions (product.md flow 3:
+ * deliveries come only from approved revisions); others see drafts too,
+ * marked as such.
+ */
+const visibleTo = (role: Role) => (role === 'operator' ? { [Op.and]: [literal("(manifest->'revision'->>'approved')::boolean = true")] } : {});
+
+export async function listDeliveries(studioId: string, role: Role): Promise<DeliveryView[]> {
+  return (await Delivery.findAll({ where: { studioId, ...visibleTo(role) }, order: [['createdAt', 'DESC']] })).map(view);
 }
 
-export async function findDelivery(studioId: string, deliveryId: string): Promise<Delivery> {
-  const delivery = await Delivery.findOne({ where: { id: deliveryId, studioId } });
+export async function findDelivery(studioId: string, deliveryId: string, role: Role): Promise<Delivery> {
+  const delivery = await Delivery.findOne({ where: { id: deliveryId, studioId, ...visibleTo(role) } });
   if (!delivery) throw notFound('Delivery');
   return delivery;
 }
 
-export async function deliveryDetail(studioId: string, deliveryId: string) {
-  const delivery = await findDelivery(studioId, deliveryId);
+export async function deliveryDetail(studioId: string, deliveryId: string, role: Role) {
+  const delivery = await findDelivery(studioId, deliveryId, role);
   return { delivery: view(delivery), manifest: delivery.manifest };
 }
 
@@ -36,8 +45,8 @@ export async function deliveryObjectKeys(delivery: Delivery): Promise<string[]> 
   return delivery.manifest.frames.map((f) => byIndex.get(f.index)!);
 }
 
-export async function markLoaded(studioId: string, actorId: string, deliveryId: string): Promise<DeliveryView> {
-  const delivery = await findDelivery(studioId, deliveryId);
+export async function markLoaded(studioId: string, actorId: string, deliveryId: string, role: Role): Promise<DeliveryView> {
+  const delivery = await findDelivery(studioId, deliveryId, role);
   if (delivery.status === 'loaded') throw conflict('This delivery is already marked as loaded.');
   await delivery.update({ status: 'loaded', loadedAt: new Date(), loadedById: actorId });
   await audit({ studioId, actorId, action: 'delivery.loaded', targetType: 'delivery', targetId: deliveryId });

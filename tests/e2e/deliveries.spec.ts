@@ -3,7 +3,7 @@ import { readFile } from 'node:fs/promises';
 import JSZip from 'jszip';
 import { expect as baseExpect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { apiSignedInAs, DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
 
 // A render worker must be running against the same database (scripts/worker.ts).
 const RENDER_DONE_TIMEOUT_MS = 120_000;
@@ -23,12 +23,25 @@ async function signInAs(page: Page, role: string) {
   await expect(page.getByTestId('studio-name')).toBeVisible({ timeout: 30_000 });
 }
 
-/** As the signed-in producer: a tiny two-frame sequence of a demo scene, rendered and packaged; returns the delivery id. */
-async function tinyDelivery(request: APIRequestContext): Promise<string> {
+/**
+ * As the signed-in producer: a fresh scene in the demo show (a copy of a demo
+ * scene's revision), submitted and approved by the demo advisor — operators
+ * only receive approved revisions — then a tiny two-frame sequence rendered
+ * and packaged. Returns the delivery id.
+ */
+async function tinyDelivery(request: APIRequestContext, advisor: APIRequestContext): Promise<string> {
   const shows = (await (await request.get(`${api}/shows`)).json()) as { shows: { id: string; name: string }[] };
   const show = shows.shows.find((s) => s.name === DEMO_SHOW)!;
   const scenes = (await (await request.get(`${api}/shows/${show.id}/scenes`)).json()) as { scenes: { id: string; name: string; latestRevision: number }[] };
-  const scene = scenes.scenes.find((s) => s.name === DEMO_SCENE)!;
+  const demo = scenes.scenes.find((s) => s.name === DEMO_SCENE)!;
+  const demoRevision = (await (await request.get(`${api}/scenes/${demo.id}/revisions/${demo.latestRevision}`)).json()) as { revision: { spec: unknown } };
+  const copy = await request.post(`${api}/shows/${show.id}/scenes`, { data: { name: `${DEMO_SCENE} delivery ${Date.now()}`, spec: demoRevision.revision.spec } });
+  expect(copy.status()).toBe(201);
+  const scene = { id: ((await copy.json()) as { scene: { id: string } }).scene.id, latestRevision: 1 };
+  const submitted = await request.post(`${api}/reviews`, { data: { sceneId: scene.id, revision: 1 } });
+  expect(submitted.status()).toBe(201);
+  const reviewId = ((await submitted.json()) as { review: { id: string } }).review.id;
+  expect((await advisor.post(`${api}/reviews/${reviewId}/approve`)).status()).toBe(201);
   const created = await request.post(`${api}/renders`, {
     data: { sceneId: scene.id, revision: scene.latestRevision, kind: 'sequence', frames: { start: 0, end: 1 }, settings: { width: 96, height: 96, format: 'png8', supersampling: 1 } },
   });
@@ -50,9 +63,11 @@ test.use({ navigationTimeout: 60_000, actionTimeout: 30_000 });
 test.describe('deliveries', () => {
   test.setTimeout(3 * RENDER_DONE_TIMEOUT_MS);
 
-  test('should let an operator download a delivery whose zip matches its manifest checksums, then mark it loaded', async ({ page }) => {
+  test('should let an operator download a delivery whose zip matches its manifest checksums, then mark it loaded', async ({ page, playwright, baseURL }) => {
     await signInAs(page, 'producer');
-    const deliveryId = await tinyDelivery(page.request);
+    const advisor = await apiSignedInAs(playwright, baseURL!, 'advisor');
+    const deliveryId = await tinyDelivery(page.request, advisor);
+    await advisor.dispose();
     await page.getByTestId('sign-out').click();
     await expect(page).toHaveURL(/\/sign-in/);
 

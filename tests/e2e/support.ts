@@ -10,3 +10,12 @@ export async function mailTo(address: string): Promise<{ subject: string; text: 
   const all = (await (await fetch(`${base}/api/email`)).json()) as { subject: string; text: string; to: { address: string }[] }[];
   return all.filter((m) => m.to.some((t) => t.address === address));
 }
+
+/** An API client signed in as a demo role through next-auth's own credentials endpoint. */
+export async function apiSignedInAs(playwright: { request: { newContext(o: { baseURL: string }): Promise<import('@playwright/test').APIRequestContext> } }, baseURL: string, role: string) {
+  const context = await playwright.request.newContext({ baseURL });
+  const { csrfToken } = (await (await context.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  const response = await context.post('/api/auth/callback/credentials', { form: { csrfToken, email: demoEmail(role), password: DEMO_PASSWORD, json: 'true' } });
+  if (!response.ok()) throw new Error(`could not sign in as ${role}: ${response.status()}`);
+  return context;
+}

@@ -5,5 +5,5 @@ import { listDeliveries } from '@/lib/renders/deliveries';
 export const GET = apiRoute({
   params: studioParams,
   access: { studioAction: 'deliveries.read' },
-  handler: async ({ access }) => json({ deliveries: await listDeliveries(access!.studio.id) }),
+  handler: async ({ access }) => json({ deliveries: await listDeliveries(access!.studio.id, access!.role) }),
 });

@@ -5,5 +5,5 @@ import { deliveryDetail } from '@/lib/renders/deliveries';
 export const GET = apiRoute({
   params: deliveryParams,
   access: { studioAction: 'deliveries.read' },
-  handler: async ({ access, params }) => json(await deliveryDetail(access!.studio.id, params.deliveryId)),
+  handler: async ({ access, params }) => json(await deliveryDetail(access!.studio.id, params.deliveryId, access!.role)),
 });

@@ -8,7 +8,7 @@ export const GET = apiRoute({
   params: deliveryParams,
   access: { studioAction: 'deliveries.read' },
   handler: async ({ access, params }) => {
-    const delivery = await findDelivery(access!.studio.id, params.deliveryId);
+    const delivery = await findDelivery(access!.studio.id, params.deliveryId, access!.role);
     const name = `${delivery.manifest.scene.slug}_rev${delivery.manifest.revision.number}.zip`;
     return new Response(deliveryZipStream(delivery.manifest, await deliveryObjectKeys(delivery)), {
       headers: { 'content-type': 'application/zip', 'content-disposition': `attachment; filename="${name}"`, 'cache-control': 'no-store' },

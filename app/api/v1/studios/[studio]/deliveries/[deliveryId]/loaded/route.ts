@@ -6,5 +6,5 @@ import { markLoaded } from '@/lib/renders/deliveries';
 export const POST = apiRoute({
   params: deliveryParams,
   access: { studioAction: 'deliveries.mark-loaded' },
-  handler: async ({ access, actor, params }) => json({ delivery: await markLoaded(access!.studio.id, actor!.userId, params.deliveryId) }),
+  handler: async ({ access, actor, params }) => json({ delivery: await markLoaded(access!.studio.id, actor!.userId, params.deliveryId, access!.role) }),
 });
