@@ -29,8 +29,10 @@ test.describe('sky view without WebGL', () => {
     await expect(page.getByTestId('sky-view-path')).toHaveAttribute('data-path', 'cpu');
     await expect(page.getByTestId('sky-view-path')).toContainText('WebGL2 is not available');
     await expect(page.getByTestId('sky-view-cpu')).toHaveAttribute('data-ready', 'true', { timeout: 120_000 });
-    const frame = Buffer.from(await page.evaluate(() => window.__skywellSkyView!.readFrame()), 'base64');
-    expect(frame.length).toBe(320 * 180 * 4);
+    // The first frame may still be the default size: wait for the small one that was asked for.
+    const readFrame = async () => Buffer.from(await page.evaluate(() => window.__skywellSkyView!.readFrame()), 'base64');
+    await expect.poll(async () => (await readFrame()).length, { timeout: 120_000 }).toBe(320 * 180 * 4);
+    const frame = await readFrame();
     // the frame has light in it (stars, Milky Way, horizon grid), not an empty canvas
     let lit = 0;
     for (let i = 0; i < frame.length; i += 4) if (frame[i] + frame[i + 1] + frame[i + 2] > 30) lit++;
