@@ -20,6 +20,7 @@ import * as revisions from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revis
 import * as revision from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revisions/[number]/route';
 import * as readout from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revisions/[number]/readout/route';
 import * as diff from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/diff/route';
+import * as revisionFrame from '@/app/api/v1/studios/[studio]/scenes/[sceneId]/revisions/[number]/frame/route';
 import { createScene, createShow } from '@/lib/scenes/service';
 import { defaultSceneSpec } from '@/lib/scenes/defaults';
 import { sceneSpecSchema } from '@/lib/scenes/schema';
@@ -89,6 +90,7 @@ const MATRIX: Entry[] = [
   { file: 'studios/[studio]/scenes/[sceneId]/revisions/route.ts', method: 'POST', handler: revisions.POST, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), body: () => ({ basedOn: 1, spec: specBody() }), expected: producers(201) },
   { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/route.ts', method: 'GET', handler: revision.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), expected: sceneReaders(200) },
   { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/readout/route.ts', method: 'GET', handler: readout.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), query: { tau: '10' }, expected: sceneReaders(200) },
+  { file: 'studios/[studio]/scenes/[sceneId]/revisions/[number]/frame/route.ts', method: 'GET', handler: revisionFrame.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId, number: '1' }), query: { tau: '10', width: '16', height: '16' }, expected: sceneReaders(200) },
   { file: 'studios/[studio]/scenes/[sceneId]/diff/route.ts', method: 'GET', handler: diff.GET, params: (c) => ({ studio: c.studio, sceneId: c.sceneId }), query: { from: '1', to: '1' }, expected: sceneReaders(200) },
   { file: 'studios/[studio]/renders/route.ts', method: 'GET', handler: renders.GET, params: (c) => ({ studio: c.studio }), expected: sceneReaders(200) },
   { file: 'studios/[studio]/renders/route.ts', method: 'POST', handler: renders.POST, params: (c) => ({ studio: c.studio }), body: () => 'still-request', expected: producers(201) },
