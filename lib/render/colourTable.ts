@@ -10,9 +10,13 @@
 export const COLOUR_TABLE_MIN_K = 300;
 /** Hottest temperature tabulated, K; hotter light keeps this colour (the Rayleigh-Jeans limit is reached long before). */
 export const COLOUR_TABLE_MAX_K = 1e7;
-const ENTRIES = 2048;
+/** Number of table entries (log-spaced in temperature). */
+export const COLOUR_TABLE_ENTRIES = 2048;
+const ENTRIES = COLOUR_TABLE_ENTRIES;
 const LOG_MIN = Math.log(COLOUR_TABLE_MIN_K);
 const LOG_SPAN = Math.log(COLOUR_TABLE_MAX_K) - LOG_MIN;
+/** Table entries per unit of ln T: a shift T -> g T moves a colour's index by ln(g) times this. */
+export const COLOUR_INDEX_PER_LOG = (ENTRIES - 1) / LOG_SPAN;
 
 /** Linear sRGB of a blackbody, luminance-normalised, in log-temperature steps. */
 export interface ColourTable {
@@ -58,7 +62,28 @@ export function blackbodyColour(table: ColourTable, temperatureK: number, out: F
  * @returns out
  */
 export function blackbodyColourLog(table: ColourTable, logTemperature: number, out: Float64Array): Float64Array {
-  let x = ((logTemperature - LOG_MIN) / LOG_SPAN) * (ENTRIES - 1);
+  return blackbodyColourAtIndex(table, colourIndexOfLog(logTemperature), out);
+}
+
+/**
+ * Fractional table index of a temperature (not clamped), so per-star indices can be precomputed
+ * and a frequency shift g added as ln(g) * COLOUR_INDEX_PER_LOG.
+ * @param logTemperature ln(T / 1 K)
+ * @returns index, 0 at COLOUR_TABLE_MIN_K and COLOUR_TABLE_ENTRIES - 1 at COLOUR_TABLE_MAX_K
+ */
+export function colourIndexOfLog(logTemperature: number): number {
+  return (logTemperature - LOG_MIN) * COLOUR_INDEX_PER_LOG;
+}
+
+/**
+ * Unit-luminance linear sRGB at a fractional table index (clamped to the table), linear interpolation.
+ * @param table colour table
+ * @param index fractional index from colourIndexOfLog (plus any shift)
+ * @param out receives r, g, b
+ * @returns out
+ */
+export function blackbodyColourAtIndex(table: ColourTable, index: number, out: Float64Array): Float64Array {
+  let x = index;
   if (!(x > 0)) x = 0;
   if (x > ENTRIES - 1) x = ENTRIES - 1;
   const i = Math.min(ENTRIES - 2, Math.floor(x));

@@ -30,6 +30,12 @@ export interface CameraOptics {
    * (lib/relativity boostLookDirection). Null for radial and hovering cameras.
    */
   boost: ((out: Float64Array, n1: number, n2: number, n3: number) => number) | null;
+  /**
+   * The camera's velocity relative to the reference observer (camera-frame e1, e2, e3 components,
+   * units of c) that `boost` applies, for callers that call boostLookDirection themselves; null when
+   * `boost` is null.
+   */
+  velocity: Float64Array | null;
 }
 
 /** Boost callback for a camera moving at `velocity` (camera-frame components) relative to the reference observer. */
@@ -53,14 +59,14 @@ export function engineCameraOptics(state: CameraState): CameraOptics {
   const r = state.radiusM;
   if (state.kind === 'hover') {
     const { eps, ur } = radialObserverKinematics(r, { kind: 'static' }, 'camera.state');
-    return { radiusM: r, eps, ur, boost: null };
+    return { radiusM: r, eps, ur, boost: null, velocity: null };
   }
   if (state.kind === 'radial') {
     const { eps, ur } = radialObserverKinematics(r, { kind: 'radial', energy: state.energy }, 'camera.state');
     if (state.direction === 'out' && !(r > 2)) {
       throw new RangeError('camera.state.direction: "out" needs radiusM > 2 (nothing moves outward inside the horizon)');
     }
-    return { radiusM: r, eps, ur: state.direction === 'out' ? -ur : ur, boost: null };
+    return { radiusM: r, eps, ur: state.direction === 'out' ? -ur : ur, boost: null, velocity: null };
   }
   let ur: number;
   let angle = 0;
@@ -84,6 +90,7 @@ export function engineCameraOptics(state: CameraState): CameraOptics {
     eps: d.referenceEnergy,
     ur: d.referenceUr,
     boost: d.tangentialSpeed !== 0 ? makeBoost(velocity) : null,
+    velocity: d.tangentialSpeed !== 0 ? velocity : null,
   };
 }
 

@@ -19,11 +19,32 @@ export interface Projector {
    */
   pixelToView(out: Float64Array, px: number, py: number): number;
   /**
+   * pixelToView for hot loops: no number crosses the call (V8 boxes doubles passed to or
+   * returned from calls it does not inline, which allocates per pixel).
+   * @param io in: [0] px, [1] py (pixels from the top-left corner); out: [2], [3], [4] the unit view
+   *   direction, [5] the pixel's angular size in radians, or -1 outside the image circle
+   */
+  project(io: Float64Array): void;
+  /**
    * Frame point of a view direction.
    * @param out receives [px, py] in pixels from the top-left corner
    * @returns false if the direction is not in the frame's field
    */
   viewToPixel(out: Float64Array, x: number, y: number, z: number): boolean;
+}
+
+/** Scratch of the pixelToView wrappers (one per module instance, i.e. per thread). */
+const wrapIo = new Float64Array(6);
+
+/** pixelToView in terms of project: one implementation of each projection's formulas. */
+function pixelToViewVia(projector: Projector, out: Float64Array, px: number, py: number): number {
+  wrapIo[0] = px;
+  wrapIo[1] = py;
+  projector.project(wrapIo);
+  out[0] = wrapIo[2];
+  out[1] = wrapIo[3];
+  out[2] = wrapIo[4];
+  return wrapIo[5];
 }
 
 /** Rectilinear (pinhole) projection with a horizontal field of view. */
@@ -37,14 +58,17 @@ class FlatProjector implements Projector {
     this.focalPx = width / 2 / Math.tan((fovDeg * DEG) / 2);
   }
   pixelToView(out: Float64Array, px: number, py: number): number {
-    const x = (px - this.width / 2) / this.focalPx;
-    const y = (this.height / 2 - py) / this.focalPx;
+    return pixelToViewVia(this, out, px, py);
+  }
+  project(io: Float64Array): void {
+    const x = (io[0] - this.width / 2) / this.focalPx;
+    const y = (this.height / 2 - io[1]) / this.focalPx;
     const inv = 1 / Math.sqrt(x * x + y * y + 1);
-    out[0] = x * inv;
-    out[1] = y * inv;
-    out[2] = inv;
+    io[2] = x * inv;
+    io[3] = y * inv;
+    io[4] = inv;
     // tangential pixel size = cos(theta) / f; the radial one is smaller (cos^2 / f)
-    return inv / this.focalPx;
+    io[5] = inv / this.focalPx;
   }
   viewToPixel(out: Float64Array, x: number, y: number, z: number): boolean {
     if (!(z > 0)) return false;
@@ -70,16 +94,22 @@ class DomeProjector implements Projector {
     this.radPerPx = this.halfApertureRad / (size / 2);
   }
   pixelToView(out: Float64Array, px: number, py: number): number {
-    const dx = px - this.size / 2;
-    const dy = this.size / 2 - py;
+    return pixelToViewVia(this, out, px, py);
+  }
+  project(io: Float64Array): void {
+    const dx = io[0] - this.size / 2;
+    const dy = this.size / 2 - io[1];
     const rho = Math.sqrt(dx * dx + dy * dy);
     const theta = rho * this.radPerPx;
-    if (theta > this.halfApertureRad) return -1;
+    if (theta > this.halfApertureRad) {
+      io[5] = -1;
+      return;
+    }
     const s = rho > 0 ? Math.sin(theta) / rho : 0;
-    out[0] = dx * s;
-    out[1] = dy * s;
-    out[2] = Math.cos(theta);
-    return this.radPerPx;
+    io[2] = dx * s;
+    io[3] = dy * s;
+    io[4] = Math.cos(theta);
+    io[5] = this.radPerPx;
   }
   viewToPixel(out: Float64Array, x: number, y: number, z: number): boolean {
     const theta = Math.acos(Math.max(-1, Math.min(1, z)));
@@ -99,13 +129,16 @@ class EquirectProjector implements Projector {
     private readonly height: number,
   ) {}
   pixelToView(out: Float64Array, px: number, py: number): number {
-    const lon = (px / this.width - 0.5) * 2 * Math.PI;
-    const lat = (0.5 - py / this.height) * Math.PI;
+    return pixelToViewVia(this, out, px, py);
+  }
+  project(io: Float64Array): void {
+    const lon = (io[0] / this.width - 0.5) * 2 * Math.PI;
+    const lat = (0.5 - io[1] / this.height) * Math.PI;
     const c = Math.cos(lat);
-    out[0] = c * Math.sin(lon);
-    out[1] = Math.sin(lat);
-    out[2] = c * Math.cos(lon);
-    return Math.max((2 * Math.PI * c) / this.width, Math.PI / this.height);
+    io[2] = c * Math.sin(lon);
+    io[3] = Math.sin(lat);
+    io[4] = c * Math.cos(lon);
+    io[5] = Math.max((2 * Math.PI * c) / this.width, Math.PI / this.height);
   }
   viewToPixel(out: Float64Array, x: number, y: number, z: number): boolean {
     const lon = Math.atan2(x, z);
@@ -132,7 +165,6 @@ class CubeFaceProjector implements Projector {
   private readonly centre: readonly number[];
   private readonly top: readonly number[];
   private readonly right: number[];
-  private readonly tmp = new Float64Array(3);
   constructor(size: number, face: string) {
     this.flat = new FlatProjector(size, size, 90);
     [this.centre, this.top] = CUBE_FACES[face];
@@ -142,10 +174,19 @@ class CubeFaceProjector implements Projector {
     this.right = [t[1] * c[2] - t[2] * c[1], t[2] * c[0] - t[0] * c[2], t[0] * c[1] - t[1] * c[0]];
   }
   pixelToView(out: Float64Array, px: number, py: number): number {
-    const a = this.flat.pixelToView(this.tmp, px, py);
-    const [x, y, z] = this.tmp;
-    for (let k = 0; k < 3; k++) out[k] = x * this.right[k] + y * this.top[k] + z * this.centre[k];
-    return a;
+    return pixelToViewVia(this, out, px, py);
+  }
+  project(io: Float64Array): void {
+    this.flat.project(io);
+    const x = io[2];
+    const y = io[3];
+    const z = io[4];
+    const r = this.right;
+    const t = this.top;
+    const c = this.centre;
+    io[2] = x * r[0] + y * t[0] + z * c[0];
+    io[3] = x * r[1] + y * t[1] + z * c[1];
+    io[4] = x * r[2] + y * t[2] + z * c[2];
   }
   viewToPixel(out: Float64Array, x: number, y: number, z: number): boolean {
     const r = this.right;

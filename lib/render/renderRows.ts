@@ -1,18 +1,23 @@
 /**
- * Render a band of rows of a frame: supersampling, exposure, tone mapping,
- * overlay compositing, and optional 8/16-bit sRGB encoding. Every pixel depends
- * only on the plan and its own position, so any split into bands, tiles or
+ * Render rows of a frame: supersampling, exposure, tone mapping, overlay
+ * compositing, and optional 8/16-bit sRGB encoding. Every pixel depends only
+ * on the plan and its own position, so any split into bands, tiles or
  * threads gives the same values.
  */
 import type { FramePlan } from './frame';
-import { Shader } from './shade';
-import { srgbEncode16, srgbEncode8, toneMapInPlace } from './toneMap';
+import { Shader, type RayTracer } from './shade';
+import { srgbEncode16, srgbLut8 } from './toneMap';
 
 /** Band of rows [y0, y1) of the full frame. */
 export interface RowBand {
   y0: number;
   y1: number;
 }
+
+const TONE_NONE = 0;
+const TONE_REINHARD = 1;
+const TONE_EXPONENTIAL = 2;
+const encode16 = srgbEncode16;
 
 function checkBand(plan: FramePlan, band: RowBand): void {
   const { y0, y1 } = band;
@@ -22,54 +27,160 @@ function checkBand(plan: FramePlan, band: RowBand): void {
 }
 
 /**
+ * Shades whole rows of one frame into display-linear RGB (exposure, tone
+ * mapping and overlays applied). One per thread; reuses its scratch memory.
+ */
+export class RowRenderer {
+  private readonly shader: Shader;
+  private readonly width: number;
+  private readonly samples: number;
+  private readonly scale: number;
+  private readonly tone: number;
+
+  /**
+   * @param plan frame plan
+   * @param tracer ray tracer replacing the lensing table (brute force), or null for the table
+   */
+  constructor(
+    private readonly plan: FramePlan,
+    tracer: RayTracer | null = null,
+  ) {
+    this.shader = new Shader(plan, tracer);
+    this.width = plan.req.width;
+    this.samples = plan.req.supersampling;
+    this.scale = plan.exposure;
+    const op = plan.req.exposure.toneMap;
+    this.tone = op === 'none' ? TONE_NONE : op === 'reinhard' ? TONE_REINHARD : TONE_EXPONENTIAL;
+  }
+
+  /**
+   * Display-linear RGB of one row.
+   * @param y row index, 0 at the top (integer, 0..height-1)
+   * @param out receives 3 floats per pixel from `offset`
+   * @param offset index of the row's first float in out
+   * @param x0 first column (default 0)
+   * @param x1 one past the last column (default: the frame width)
+   */
+  renderRow(y: number, out: Float32Array, offset: number, x0 = 0, x1 = this.width): void {
+    if (!Number.isInteger(y) || y < 0 || y >= this.plan.req.height) throw new RangeError(`y: integer row 0..${this.plan.req.height - 1}`);
+    if (!Number.isInteger(x0) || !Number.isInteger(x1) || x0 < 0 || x1 > this.width || x1 < x0) {
+      throw new RangeError(`x0, x1: integer columns with 0 <= x0 <= x1 <= ${this.width}`);
+    }
+    if (!Number.isInteger(offset) || offset < 0 || offset + (x1 - x0) * 3 > out.length) throw new RangeError('offset: the row must fit in out');
+    const shader = this.shader;
+    const n = this.samples;
+    const inv = 1 / (n * n);
+    const scale = this.scale * inv;
+    const tone = this.tone;
+    const rad = shader.result.radiance;
+    const ov = shader.result.overlay;
+    let o = offset;
+    for (let x = x0; x < x1; x++) {
+      let r0: number;
+      let r1: number;
+      let r2: number;
+      let o0: number;
+      let o1: number;
+      let o2: number;
+      let a: number;
+      if (n === 1) {
+        shader.shadeSample(x, y, 0, 0);
+        r0 = rad[0];
+        r1 = rad[1];
+        r2 = rad[2];
+        o0 = ov[0];
+        o1 = ov[1];
+        o2 = ov[2];
+        a = ov[3];
+      } else {
+        r0 = r1 = r2 = o0 = o1 = o2 = a = 0;
+        for (let sy = 0; sy < n; sy++) {
+          for (let sx = 0; sx < n; sx++) {
+            shader.shadeSample(x, y, sx, sy);
+            r0 += rad[0];
+            r1 += rad[1];
+            r2 += rad[2];
+            o0 += ov[0];
+            o1 += ov[1];
+            o2 += ov[2];
+            a += ov[3];
+          }
+        }
+        o0 *= inv;
+        o1 *= inv;
+        o2 *= inv;
+        a *= inv;
+      }
+      r0 *= scale;
+      r1 *= scale;
+      r2 *= scale;
+      if (tone === TONE_EXPONENTIAL) {
+        // photographic film response, per channel (toneMap.ts)
+        r0 = 1 - Math.exp(-r0);
+        r1 = 1 - Math.exp(-r1);
+        r2 = 1 - Math.exp(-r2);
+      } else if (tone === TONE_REINHARD) {
+        // Reinhard et al. 2002 on luminance, keeping hue (toneMap.ts)
+        const s = 1 / (1 + 0.2126 * r0 + 0.7152 * r1 + 0.0722 * r2);
+        r0 *= s;
+        r1 *= s;
+        r2 *= s;
+      }
+      if (a > 0) {
+        r0 = r0 * (1 - a) + o0;
+        r1 = r1 * (1 - a) + o1;
+        r2 = r2 * (1 - a) + o2;
+      }
+      out[o] = r0;
+      out[o + 1] = r1;
+      out[o + 2] = r2;
+      o += 3;
+    }
+  }
+}
+
+/**
  * Display-linear RGB of a band (exposure and tone mapping applied, overlays composited).
  * With toneMap 'none' and exposure scale s, the values are radiance * s plus overlays.
  * @param plan frame plan
  * @param band rows to render
  * @param out optional output, 3 floats per pixel, (y1 - y0) * width * 3 long
+ * @param tracer ray tracer replacing the lensing table (brute force), or null for the table
  * @returns out
  */
-export function renderBandLinear(plan: FramePlan, band: RowBand, out?: Float32Array): Float32Array {
+export function renderBandLinear(plan: FramePlan, band: RowBand, out?: Float32Array, tracer: RayTracer | null = null): Float32Array {
   checkBand(plan, band);
   const width = plan.req.width;
   const rows = band.y1 - band.y0;
   const buf = out ?? new Float32Array(rows * width * 3);
   if (buf.length !== rows * width * 3) throw new RangeError('out: length must be rows * width * 3');
-  const shader = new Shader(plan);
-  const n = plan.req.supersampling;
-  const inv = 1 / (n * n);
-  const scale = plan.exposure;
-  const op = plan.req.exposure.toneMap;
-  const acc = new Float64Array(7);
-  for (let y = band.y0; y < band.y1; y++) {
-    for (let x = 0; x < width; x++) {
-      acc.fill(0);
-      for (let sy = 0; sy < n; sy++) {
-        for (let sx = 0; sx < n; sx++) {
-          const res = shader.shade(x + (sx + 0.5) / n, y + (sy + 0.5) / n, n);
-          acc[0] += res.radiance[0];
-          acc[1] += res.radiance[1];
-          acc[2] += res.radiance[2];
-          acc[3] += res.overlay[0];
-          acc[4] += res.overlay[1];
-          acc[5] += res.overlay[2];
-          acc[6] += res.overlay[3];
-        }
-      }
-      const i = ((y - band.y0) * width + x) * 3;
-      buf[i] = acc[0] * inv * scale;
-      buf[i + 1] = acc[1] * inv * scale;
-      buf[i + 2] = acc[2] * inv * scale;
-      toneMapInPlace(buf, i, op);
-      const a = acc[6] * inv;
-      if (a > 0) {
-        buf[i] = buf[i] * (1 - a) + acc[3] * inv;
-        buf[i + 1] = buf[i + 1] * (1 - a) + acc[4] * inv;
-        buf[i + 2] = buf[i + 2] * (1 - a) + acc[5] * inv;
-      }
-    }
-  }
+  const renderer = new RowRenderer(plan, tracer);
+  for (let y = band.y0; y < band.y1; y++) renderer.renderRow(y, buf, (y - band.y0) * width * 3);
   return buf;
+}
+
+/**
+ * Encode display-linear values as sRGB codes (IEC 61966-2-1), clipped to 0..1.
+ * @param linear source values
+ * @param from first index in linear
+ * @param count number of values
+ * @param out Uint8Array for 8-bit codes, Uint16Array for 16-bit codes
+ * @param at first index written in out
+ */
+export function encodeSrgbInto(linear: Float32Array, from: number, count: number, out: Uint8Array | Uint16Array, at: number): void {
+  if (!Number.isInteger(from) || !Number.isInteger(count) || !Number.isInteger(at) || from < 0 || count < 0 || at < 0) {
+    throw new RangeError('from, count, at: integers >= 0');
+  }
+  if (from + count > linear.length || at + count > out.length) throw new RangeError('count: the values must fit in linear and out');
+  if (out instanceof Uint8Array) {
+    const lut = srgbLut8();
+    for (let i = 0; i < count; i++) {
+      const v = linear[from + i];
+      out[at + i] = !(v > 0) ? 0 : v >= 1 ? 255 : lut[Math.round(v * 65535)];
+    }
+    return;
+  }
+  for (let i = 0; i < count; i++) out[at + i] = encode16(linear[from + i]);
 }
 
 /**
@@ -81,9 +192,14 @@ export function renderBandLinear(plan: FramePlan, band: RowBand, out?: Float32Ar
  */
 export function renderBandEncoded(plan: FramePlan, band: RowBand, bitDepth: 8 | 16): Uint8Array | Uint16Array {
   if (bitDepth !== 8 && bitDepth !== 16) throw new RangeError('bitDepth: 8 or 16');
-  const linear = renderBandLinear(plan, band);
-  const out = bitDepth === 8 ? new Uint8Array(linear.length) : new Uint16Array(linear.length);
-  const enc = bitDepth === 8 ? srgbEncode8 : srgbEncode16;
-  for (let i = 0; i < linear.length; i++) out[i] = enc(linear[i]);
+  checkBand(plan, band);
+  const width = plan.req.width;
+  const out = bitDepth === 8 ? new Uint8Array((band.y1 - band.y0) * width * 3) : new Uint16Array((band.y1 - band.y0) * width * 3);
+  const row = new Float32Array(width * 3);
+  const renderer = new RowRenderer(plan);
+  for (let y = band.y0; y < band.y1; y++) {
+    renderer.renderRow(y, row, 0);
+    encodeSrgbInto(row, 0, row.length, out, (y - band.y0) * width * 3);
+  }
   return out;
 }

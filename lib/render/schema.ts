@@ -126,7 +126,7 @@ export const frameRequestSchema = z
           .default({ enabled: true, gain: 1 }),
         panorama: z
           .object({
-            /** Asset key or file path of an equirectangular image (RA 0h at the centre column... see README). */
+            /** Asset key or file path of an equirectangular image (left edge RA 0h, RA growing to the right, top row Dec +90; see README). */
             source: z.string().min(1),
             /** Surface brightness of a linear value 1 in the panorama, mag-0 star fluxes per steradian. */
             gain: z.number().finite().min(0).max(1e9).default(1000),

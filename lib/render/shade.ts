@@ -1,8 +1,9 @@
 /**
- * The per-pixel path: view direction -> camera-frame look angle -> lensing
- * table -> sky direction, shift g and footprint -> radiance of stars, Milky
- * Way, panorama, or a grid where the ray ends on the horizon. Allocation-free:
- * one Shader per thread holds all scratch arrays.
+ * The per-pixel path: view direction -> camera-frame look angle -> ray tracer
+ * (the lensing table, or a brute-force integrator) -> sky direction, shift g
+ * and footprint -> radiance of stars, Milky Way, panorama, or a grid where the
+ * ray ends on the horizon. Allocation-free: one Shader per thread holds all
+ * scratch arrays.
  *
  * Radiance unit: mag-0 star fluxes per steradian. A star of flux F adds
  * F * K(d) with K a normalised Gaussian on the sky whose width is the pixel's
@@ -12,19 +13,36 @@
  * secondary, rings) appears wherever the lensing map sends pixels to it.
  */
 import type { FramePlan } from './frame';
-import { FATE_FAR_SIDE, FATE_HORIZON, FATE_SKY, createRayLookup } from '../relativity';
-import { lookupLensLut } from './lensLut';
-import { blackbodyColour, blackbodyColourLog } from './colourTable';
-import { STAR_CELL_SIZE } from './starField';
-import { sampleSkyMap } from './skyMap';
+import { FATE_FAR_SIDE, FATE_HORIZON, FATE_SKY, boostLookDirection, createRayLookup, type RayLookup } from '../relativity';
+import { lookupLensLutIo } from './lensLut';
+import { COLOUR_INDEX_PER_LOG, COLOUR_TABLE_ENTRIES, blackbodyColourAtIndex, colourIndexOfLog } from './colourTable';
+import { STAR_CELL_SIZE, STAR_STRIDE } from './starField';
+import { sampleSkyMapIo } from './skyMap';
 import { MILKY_WAY_TEMPERATURE_K } from './milkyWay';
-import { drawGrid } from './grids';
+import { createGridPoint, drawLensedGrid } from './grids';
+
+// Module-local bindings of imported values: tsx/esbuild compile imports to property getters on the
+// module object, and the per-pixel path should not pay a getter call for each use.
+const SKY = FATE_SKY;
+const HORIZON = FATE_HORIZON;
+const FAR_SIDE = FATE_FAR_SIDE;
+const lensLookup = lookupLensLutIo;
+const colourAtIndex = blackbodyColourAtIndex;
+const sampleMap = sampleSkyMapIo;
+const boost = boostLookDirection;
+const gridCoverage = drawLensedGrid;
+const INDEX_PER_LOG = COLOUR_INDEX_PER_LOG;
+const LAST_INDEX = COLOUR_TABLE_ENTRIES - 1;
+const CELL = STAR_CELL_SIZE;
+const STRIDE = STAR_STRIDE;
 
 /** Largest star kernel sigma (radians) summed star by star; wider footprints read the star-light map. */
 const STAR_SIGMA_MAX_RAD = STAR_CELL_SIZE / 3;
 const CELLS = Math.ceil(2 / STAR_CELL_SIZE) + 1;
 const ARCSEC_RAD = Math.PI / 648000;
-const LOG_MILKY_WAY_TEMPERATURE = Math.log(MILKY_WAY_TEMPERATURE_K);
+const MILKY_WAY_INDEX = colourIndexOfLog(Math.log(MILKY_WAY_TEMPERATURE_K));
+const INV_TWO_PI = 1 / (2 * Math.PI);
+const INV_PI = 1 / Math.PI;
 
 /** Per-sample result: radiance and overlay. */
 export interface SampleResult {
@@ -34,23 +52,69 @@ export interface SampleResult {
   overlay: Float64Array;
 }
 
+/**
+ * Traces a look angle of the reference observer to the ray's fate, azimuth swept,
+ * dphi/dpsi and shift: the frame's lensing table by default, or a brute-force
+ * geodesic integrator (bruteForce.ts) plugged into the same shading.
+ */
+export interface RayTracer {
+  /**
+   * @param psi look angle from the outward radial axis in the reference observer's frame, radians, 0..pi
+   * @param cosPsi cos(psi)
+   * @param out record to fill (fate, phi, dPhiDPsi, g; jacobian is not used)
+   * @returns out
+   */
+  trace(psi: number, cosPsi: number, out: RayLookup): RayLookup;
+}
+
 /** Per-thread shading state for one frame plan. */
 export class Shader {
-  private readonly view = new Float64Array(3);
+  /**
+   * Scratch through which numbers travel to the projector, the lens grid and the sky maps: V8 boxes
+   * (allocates) a double passed to or returned from a call it does not inline, so the per-pixel path
+   * passes none. [0], [1] sample position in pixels; [2..4] view direction; [5] pixel angle.
+   */
+  private readonly io = new Float64Array(6);
+  /** lens grid in: [0] psi, [1] cos psi; out: [2] cos phi, [3] sin phi, [4] phi, [5] dphi/dpsi, [6] g, [7] fate */
+  private readonly lensIo = new Float64Array(8);
+  /** [0] u, [1] v, [2] footprint, [3] scratch for the sky maps */
+  private readonly mapIo = new Float64Array(4);
+  private readonly look = new Float64Array(3);
   private readonly cam = new Float64Array(3);
-  private readonly dir = new Float64Array(3);
+  /** supersampling factor of the current sample (1 / sample spacing in pixels) */
+  private samplesPerAxis = 1;
+  /** [0] last frequency shift seen, [1] its colour-table index offset ln(g) * COLOUR_INDEX_PER_LOG */
+  private readonly shiftCache = Float64Array.of(1, 0);
+  /** end direction d and its derivatives per output pixel (grids.ts GridPoint) */
+  private readonly point = createGridPoint();
   private readonly colour = new Float64Array(3);
   private readonly mapSample = new Float64Array(3);
-  private readonly lens = createRayLookup();
+  private readonly ray = createRayLookup();
   readonly result: SampleResult = { radiance: new Float64Array(3), overlay: new Float64Array(4) };
   private readonly sourceSizeRad: number;
   private readonly horizonColour: Float64Array;
   private readonly farSideColour: Float64Array;
+  /** colour-table indices of the panorama's reference temperature and the uniform sky's temperature */
+  private readonly panoramaIndex: number;
+  private readonly uniformIndex: number;
+  /** unshifted panorama reference colour, to divide out when the panorama's colour is shifted */
+  private readonly panoramaBase = new Float64Array(3);
 
-  constructor(private readonly plan: FramePlan) {
-    this.sourceSizeRad = plan.req.sky.stars.sourceSizeArcsec * ARCSEC_RAD;
+  /**
+   * @param plan frame plan
+   * @param tracer ray tracer replacing the plan's lensing table (brute force), or null to use the table
+   */
+  constructor(
+    private readonly plan: FramePlan,
+    private readonly tracer: RayTracer | null = null,
+  ) {
+    const sky = plan.req.sky;
+    this.sourceSizeRad = sky.stars.sourceSizeArcsec * ARCSEC_RAD;
     this.horizonColour = hexToLinear(plan.req.effects.horizonGrid.colour);
     this.farSideColour = hexToLinear(plan.req.effects.farSideGrid.colour);
+    this.panoramaIndex = sky.panorama ? colourIndexOfLog(Math.log(sky.panorama.referenceTemperatureK)) : 0;
+    this.uniformIndex = sky.uniform ? colourIndexOfLog(Math.log(sky.uniform.temperatureK)) : 0;
+    colourAtIndex(plan.colours, this.panoramaIndex, this.panoramaBase);
   }
 
   /**
@@ -61,25 +125,65 @@ export class Shader {
    * @returns the shared result record (overwritten by the next call)
    */
   shade(px: number, py: number, samplesPerAxis: number): SampleResult {
+    this.io[0] = px;
+    this.io[1] = py;
+    this.samplesPerAxis = samplesPerAxis;
+    return this.shadeIo();
+  }
+
+  /**
+   * Shade sample (sx, sy) of pixel (x, y) on an n x n grid, n = the request's supersampling
+   * (integers only, so nothing is boxed by the call).
+   * @param x pixel column, 0 at the left
+   * @param y pixel row, 0 at the top
+   * @param sx sample column inside the pixel, 0..n-1
+   * @param sy sample row inside the pixel, 0..n-1
+   * @returns the shared result record (overwritten by the next call)
+   */
+  shadeSample(x: number, y: number, sx: number, sy: number): SampleResult {
+    const n = this.plan.req.supersampling;
+    this.io[0] = x + (sx + 0.5) / n;
+    this.io[1] = y + (sy + 0.5) / n;
+    this.samplesPerAxis = n;
+    return this.shadeIo();
+  }
+
+  /** Shade the sample whose position is in io[0], io[1]. */
+  private shadeIo(): SampleResult {
     const plan = this.plan;
     const req = plan.req;
+    const samplesPerAxis = this.samplesPerAxis;
     const rad = this.result.radiance;
     const ov = this.result.overlay;
     rad[0] = rad[1] = rad[2] = 0;
     ov[0] = ov[1] = ov[2] = ov[3] = 0;
-    const pixelRad = plan.projector.pixelToView(this.view, px, py);
+    const io = this.io;
+    plan.projector.project(io);
+    const pixelRad = io[5];
     if (pixelRad < 0) return this.result;
-    const v = this.view;
+    const v0 = io[2];
+    const v1 = io[3];
+    const v2 = io[4];
     const m = plan.viewToCamera;
     // camera-frame look direction n (e1 outward radial)
-    let n1 = m[0] * v[0] + m[1] * v[1] + m[2] * v[2];
-    let n2 = m[3] * v[0] + m[4] * v[1] + m[5] * v[2];
-    let n3 = m[6] * v[0] + m[7] * v[1] + m[8] * v[2];
+    let n1 = m[0] * v0 + m[1] * v1 + m[2] * v2;
+    let n2 = m[3] * v0 + m[4] * v1 + m[5] * v2;
+    let n3 = m[6] * v0 + m[7] * v1 + m[8] * v2;
     let doppler = 1;
-    const optics = plan.optics;
-    if (optics.boost && req.effects.lensing) {
+    const velocity = plan.optics.velocity;
+    if (velocity !== null && req.effects.lensing) {
+      // aberrate into the reference observer's frame (lib/relativity boostLookDirection, Einstein 1905);
+      // the Doppler factor D = 1 / (gamma (1 - v . n)) is recomputed here rather than returned (a boxed double)
+      const look = this.look;
       const c = this.cam;
-      doppler = optics.boost(c, n1, n2, n3);
+      look[0] = n1;
+      look[1] = n2;
+      look[2] = n3;
+      boost(c, look, velocity);
+      const vx = velocity[0];
+      const vy = velocity[1];
+      const vz = velocity[2];
+      doppler = Math.sqrt(1 - (vx * vx + vy * vy + vz * vz)) / (1 - (vx * n1 + vy * n2 + vz * n3));
       n1 = c[0];
       n2 = c[1];
       n3 = c[2];
@@ -94,37 +198,81 @@ export class Shader {
       sinPsi = 0;
     }
     const psi = Math.atan2(sinPsi, n1);
-    const ls = this.lens;
-    if (plan.lens) {
-      lookupLensLut(plan.lens, psi, n1, ls);
+    // the ray: fate, cos and sin of phi, dphi/dpsi, g (locals, not object fields, in the table path)
+    let fate: number;
+    let cp: number;
+    let sp: number;
+    let radialRate: number;
+    let gRef: number;
+    if (this.tracer === null && plan.lens !== null) {
+      const lensIo = this.lensIo;
+      lensIo[0] = psi;
+      lensIo[1] = n1;
+      lensLookup(plan.lens, lensIo, this.ray);
+      cp = lensIo[2];
+      sp = lensIo[3];
+      radialRate = lensIo[5];
+      gRef = lensIo[6];
+      fate = lensIo[7] | 0; // an integer, so the fate tests below compare small integers, not doubles
     } else {
-      ls.fate = FATE_SKY;
-      ls.phi = psi;
-      ls.g = 1;
-      ls.dPhiDPsi = 1;
+      const ls = this.ray;
+      if (this.tracer !== null) {
+        this.tracer.trace(psi, n1, ls);
+      } else {
+        ls.fate = SKY;
+        ls.phi = psi;
+        ls.g = 1;
+        ls.dPhiDPsi = 1;
+      }
+      cp = Math.cos(ls.phi);
+      sp = Math.sin(ls.phi);
+      radialRate = ls.dPhiDPsi;
+      gRef = ls.g;
+      fate = ls.fate | 0;
     }
-    const g = ls.g * doppler;
-    // sky (or horizon) direction: rotate e1 by phi towards the look direction's transverse part
-    const cp = Math.cos(ls.phi);
-    const sp = Math.sin(ls.phi);
+    const g = gRef * doppler;
+    // sky (or horizon) direction: rotate e1 by phi towards the look direction's transverse part t
     const c2h = plan.cameraToHole;
-    const a2 = sp * t2;
-    const a3 = sp * t3;
-    const d = this.dir;
-    d[0] = c2h[0] * cp + c2h[1] * a2 + c2h[2] * a3;
-    d[1] = c2h[3] * cp + c2h[4] * a2 + c2h[5] * a3;
-    d[2] = c2h[6] * cp + c2h[7] * a2 + c2h[8] * a3;
-    // sky angle per screen angle: radial |dphi/dpsi|, tangential |sin phi| / sin psi
-    const radial = Math.abs(ls.dPhiDPsi);
-    const tangential = sinPsi > 1e-9 ? Math.abs(sp) / sinPsi : radial;
-    const stretch = radial > tangential ? radial : tangential;
-    const footRad = pixelRad * stretch;
+    // e1 and t in the hole frame
+    const e1x = c2h[0];
+    const e1y = c2h[3];
+    const e1z = c2h[6];
+    const tx = c2h[1] * t2 + c2h[2] * t3;
+    const ty = c2h[4] * t2 + c2h[5] * t3;
+    const tz = c2h[7] * t2 + c2h[8] * t3;
+    const dx = cp * e1x + sp * tx;
+    const dy = cp * e1y + sp * ty;
+    const dz = cp * e1z + sp * tz;
+    // sky angle per screen angle: radial |dphi/dpsi|, tangential |sin phi| / sin psi. Aberration is
+    // conformal with angular scale D (d theta_ref / d theta_camera = D, Einstein 1905), so a camera
+    // pixel spans D times its angle in the reference frame.
+    const pixelRefRad = pixelRad * doppler;
+    const tangentialRate = sinPsi > 1e-9 ? sp / sinPsi : radialRate;
+    const radial = Math.abs(radialRate);
+    const tangential = Math.abs(tangentialRate);
+    const footRad = pixelRefRad * (radial > tangential ? radial : tangential);
 
-    if (ls.fate === FATE_HORIZON || ls.fate === FATE_FAR_SIDE) {
-      const grid = ls.fate === FATE_HORIZON ? req.effects.horizonGrid : req.effects.farSideGrid;
+    if (fate === HORIZON || fate === FAR_SIDE) {
+      const grid = fate === HORIZON ? req.effects.horizonGrid : req.effects.farSideGrid;
       if (grid.enabled) {
-        const cover = drawGrid(d, footRad, grid.spacingDeg, grid.lineWidthPx, grid.dashed);
-        const col = ls.fate === FATE_HORIZON ? this.horizonColour : this.farSideColour;
+        // derivative of d per output pixel: along psi it turns by dphi/dpsi towards (-sin phi e1 + cos phi t);
+        // across, the rotation plane turns about e1, moving d by sin(phi)/sin(psi) along e1 x t
+        const p = this.point;
+        const a = radialRate * pixelRefRad;
+        const b = tangentialRate * pixelRefRad;
+        p[0] = dx;
+        p[1] = dy;
+        p[2] = dz;
+        p[3] = a * (cp * tx - sp * e1x);
+        p[4] = a * (cp * ty - sp * e1y);
+        p[5] = a * (cp * tz - sp * e1z);
+        // e1 x t = c2h (0, -t3, t2)
+        p[6] = b * (c2h[2] * t2 - c2h[1] * t3);
+        p[7] = b * (c2h[5] * t2 - c2h[4] * t3);
+        p[8] = b * (c2h[8] * t2 - c2h[7] * t3);
+        gridCoverage(p, grid.spacingDeg, grid.lineWidthPx, 1 / samplesPerAxis, grid.dashed);
+        const cover = p[9];
+        const col = fate === HORIZON ? this.horizonColour : this.farSideColour;
         ov[0] = col[0] * cover;
         ov[1] = col[1] * cover;
         ov[2] = col[2] * cover;
@@ -134,116 +282,143 @@ export class Shader {
     }
 
     const shift = req.effects.colourShift ? g : 1;
-    const logShift = shift === 1 ? 0 : Math.log(shift);
-    const beam = req.effects.beaming ? g * g * g * g : 1;
+    // colour-table shift ln(g) per ln T; g repeats from pixel to pixel for hovering cameras, so keep the last log
+    const shiftCache = this.shiftCache;
+    // (< and > rather than !==: a strict equality on doubles makes V8 box them)
+    if (shift < shiftCache[0] || shift > shiftCache[0]) {
+      shiftCache[0] = shift;
+      shiftCache[1] = Math.log(shift) * INDEX_PER_LOG;
+    }
+    const shiftIndex = shiftCache[1];
     const colours = plan.colours;
     const col = this.colour;
     const sampleFoot = footRad / samplesPerAxis;
+    let r0 = 0;
+    let r1 = 0;
+    let r2 = 0;
 
     // stars, one by one while the kernel is narrow
     const sky = req.sky;
     const starSigma = Math.max(sky.stars.psfSigmaPx * footRad, this.sourceSizeRad);
     let mapWeight = 0;
-    if (plan.stars) {
-      mapWeight = smoothstep(0.5 * STAR_SIGMA_MAX_RAD, STAR_SIGMA_MAX_RAD, starSigma);
+    const field = plan.stars;
+    if (field !== null) {
+      // smoothstep from half the largest per-star sigma to all of it (inlined: no boxed arguments)
+      const ramp = (starSigma - 0.5 * STAR_SIGMA_MAX_RAD) / (0.5 * STAR_SIGMA_MAX_RAD);
+      mapWeight = ramp <= 0 ? 0 : ramp >= 1 ? 1 : ramp * ramp * (3 - 2 * ramp);
       if (mapWeight < 1) {
-        const field = plan.stars;
         const reach = 3 * starSigma;
         const reach2 = reach * reach;
         const inv2s2 = 1 / (2 * starSigma * starSigma);
         const norm = (sky.stars.gain * (1 - mapWeight)) / (2 * Math.PI * starSigma * starSigma);
-        const dx = d[0];
-        const dy = d[1];
-        const dz = d[2];
-        const x0 = Math.floor((dx - reach + 1) / STAR_CELL_SIZE);
-        const x1 = Math.floor((dx + reach + 1) / STAR_CELL_SIZE);
-        const y0 = Math.floor((dy - reach + 1) / STAR_CELL_SIZE);
-        const y1 = Math.floor((dy + reach + 1) / STAR_CELL_SIZE);
-        const z0 = Math.max(0, Math.floor((dz - reach + 1) / STAR_CELL_SIZE));
-        const z1 = Math.min(CELLS - 1, Math.floor((dz + reach + 1) / STAR_CELL_SIZE));
+        const x0 = Math.floor((dx - reach + 1) / CELL);
+        const x1 = Math.floor((dx + reach + 1) / CELL);
+        const y0 = Math.floor((dy - reach + 1) / CELL);
+        const y1 = Math.floor((dy + reach + 1) / CELL);
+        const z0 = Math.max(0, Math.floor((dz - reach + 1) / CELL));
+        const z1 = Math.min(CELLS - 1, Math.floor((dz + reach + 1) / CELL));
         const start = field.cellStart;
-        for (let ix = x0 < 0 ? 0 : x0; ix <= x1 && ix < CELLS; ix++) {
-          for (let iy = y0 < 0 ? 0 : y0; iy <= y1 && iy < CELLS; iy++) {
+        const stars = field.packed;
+        const rgb = colours.rgb;
+        const ixEnd = x1 < CELLS ? x1 : CELLS - 1;
+        const iyEnd = y1 < CELLS ? y1 : CELLS - 1;
+        for (let ix = x0 < 0 ? 0 : x0; ix <= ixEnd; ix++) {
+          for (let iy = y0 < 0 ? 0 : y0; iy <= iyEnd; iy++) {
             const base = (ix * CELLS + iy) * CELLS;
             const end = start[base + z1 + 1];
             for (let s = start[base + z0]; s < end; s++) {
-              const ex = field.x[s] - dx;
-              const ey = field.y[s] - dy;
-              const ez = field.z[s] - dz;
+              const o = s * STRIDE;
+              const ex = stars[o] - dx;
+              const ey = stars[o + 1] - dy;
+              const ez = stars[o + 2] - dz;
               const dist2 = ex * ex + ey * ey + ez * ez;
               if (dist2 >= reach2) continue;
-              const w = norm * field.flux[s] * Math.exp(-dist2 * inv2s2);
-              blackbodyColourLog(colours, field.logTemperature[s] + logShift, col);
-              rad[0] += w * col[0];
-              rad[1] += w * col[1];
-              rad[2] += w * col[2];
+              const w = norm * stars[o + 3] * Math.exp(-dist2 * inv2s2);
+              // blackbody colour at g T: the star's table index moved by ln(g) (colourTable.ts), inlined
+              let x = stars[o + 4] + shiftIndex;
+              if (!(x > 0)) x = 0;
+              if (x > LAST_INDEX) x = LAST_INDEX;
+              let i = Math.floor(x);
+              if (i > LAST_INDEX - 1) i = LAST_INDEX - 1;
+              const f = x - i;
+              const j = 3 * i;
+              r0 += w * (rgb[j] + f * (rgb[j + 3] - rgb[j]));
+              r1 += w * (rgb[j + 1] + f * (rgb[j + 4] - rgb[j + 1]));
+              r2 += w * (rgb[j + 2] + f * (rgb[j + 5] - rgb[j + 2]));
             }
           }
         }
       }
     }
 
-    const needsUv = plan.diffuse !== null || plan.panorama !== null;
-    if (needsUv) {
-      let u = Math.atan2(d[1], d[0]) / (2 * Math.PI);
+    if (plan.diffuse !== null || plan.panorama !== null) {
+      let u = Math.atan2(dy, dx) * INV_TWO_PI;
       if (u < 0) u += 1;
-      const vv = 0.5 - Math.asin(d[2] > 1 ? 1 : d[2] < -1 ? -1 : d[2]) / Math.PI;
-      if (plan.diffuse) {
-        const s = sampleSkyMap(plan.diffuse, u, vv, sampleFoot, this.mapSample);
+      const vv = 0.5 - Math.asin(dz > 1 ? 1 : dz < -1 ? -1 : dz) * INV_PI;
+      const mapIo = this.mapIo;
+      if (plan.diffuse !== null) {
+        mapIo[0] = u;
+        mapIo[1] = vv;
+        mapIo[2] = sampleFoot;
+        const s = sampleMap(plan.diffuse, mapIo, this.mapSample);
         const mw = s[0] * sky.milkyWay.gain;
         if (mw > 0 && sky.milkyWay.enabled) {
-          blackbodyColourLog(colours, LOG_MILKY_WAY_TEMPERATURE + logShift, col);
-          rad[0] += mw * col[0];
-          rad[1] += mw * col[1];
-          rad[2] += mw * col[2];
+          // blackbody colour at g * 5000 K (colourTable.ts blackbodyColourAtIndex, inlined: no boxed argument)
+          let x = MILKY_WAY_INDEX + shiftIndex;
+          if (!(x > 0)) x = 0;
+          if (x > LAST_INDEX) x = LAST_INDEX;
+          let i = Math.floor(x);
+          if (i > LAST_INDEX - 1) i = LAST_INDEX - 1;
+          const f = x - i;
+          const j = 3 * i;
+          const rgb = colours.rgb;
+          r0 += mw * (rgb[j] + f * (rgb[j + 3] - rgb[j]));
+          r1 += mw * (rgb[j + 1] + f * (rgb[j + 4] - rgb[j + 1]));
+          r2 += mw * (rgb[j + 2] + f * (rgb[j + 5] - rgb[j + 2]));
         }
         if (mapWeight > 0 && s[1] > 0) {
           const flux = s[1] * sky.stars.gain * mapWeight;
-          blackbodyColour(colours, (s[2] / s[1]) * shift, col);
-          rad[0] += flux * col[0];
-          rad[1] += flux * col[1];
-          rad[2] += flux * col[2];
+          // flux-weighted mean temperature of the texel's stars, shifted
+          colourAtIndex(colours, colourIndexOfLog(Math.log(s[2] / s[1])) + shiftIndex, col);
+          r0 += flux * col[0];
+          r1 += flux * col[1];
+          r2 += flux * col[2];
         }
       }
-      if (plan.panorama && sky.panorama) {
-        const s = sampleSkyMap(plan.panorama, u, vv, sampleFoot, this.mapSample);
+      if (plan.panorama !== null && sky.panorama) {
+        mapIo[0] = u;
+        mapIo[1] = vv;
+        mapIo[2] = sampleFoot;
+        const s = sampleMap(plan.panorama, mapIo, this.mapSample);
         const gain = sky.panorama.gain;
-        const tRef = sky.panorama.referenceTemperatureK;
-        if (shift !== 1) {
-          // treat the panorama's light as a blackbody at tRef when shifting its colour
-          blackbodyColour(colours, tRef, col);
-          const r0 = col[0];
-          const g0 = col[1];
-          const b0 = col[2];
-          blackbodyColour(colours, tRef * shift, col);
-          rad[0] += gain * s[0] * (r0 > 0 ? col[0] / r0 : 1);
-          rad[1] += gain * s[1] * (g0 > 0 ? col[1] / g0 : 1);
-          rad[2] += gain * s[2] * (b0 > 0 ? col[2] / b0 : 1);
+        if (shift < 1 || shift > 1) {
+          // treat the panorama's light as a blackbody at its reference temperature when shifting its colour
+          const base = this.panoramaBase;
+          colourAtIndex(colours, this.panoramaIndex + shiftIndex, col);
+          r0 += gain * s[0] * (base[0] > 0 ? col[0] / base[0] : 1);
+          r1 += gain * s[1] * (base[1] > 0 ? col[1] / base[1] : 1);
+          r2 += gain * s[2] * (base[2] > 0 ? col[2] / base[2] : 1);
         } else {
-          rad[0] += gain * s[0];
-          rad[1] += gain * s[1];
-          rad[2] += gain * s[2];
+          r0 += gain * s[0];
+          r1 += gain * s[1];
+          r2 += gain * s[2];
         }
       }
     }
     if (sky.uniform) {
-      blackbodyColour(colours, sky.uniform.temperatureK * shift, col);
-      rad[0] += sky.uniform.brightness * col[0];
-      rad[1] += sky.uniform.brightness * col[1];
-      rad[2] += sky.uniform.brightness * col[2];
+      colourAtIndex(colours, this.uniformIndex + shiftIndex, col);
+      r0 += sky.uniform.brightness * col[0];
+      r1 += sky.uniform.brightness * col[1];
+      r2 += sky.uniform.brightness * col[2];
     }
-    rad[0] *= beam;
-    rad[1] *= beam;
-    rad[2] *= beam;
+    // Liouville: bolometric surface brightness scales as g^4 (physics.md section 6)
+    const g2 = g * g;
+    const beam = req.effects.beaming ? g2 * g2 : 1;
+    rad[0] = r0 * beam;
+    rad[1] = r1 * beam;
+    rad[2] = r2 * beam;
     return this.result;
   }
-}
-
-function smoothstep(a: number, b: number, x: number): number {
-  if (x <= a) return 0;
-  if (x >= b) return 1;
-  const t = (x - a) / (b - a);
-  return t * t * (3 - 2 * t);
 }
 
 /**
@@ -252,6 +427,7 @@ function smoothstep(a: number, b: number, x: number): number {
  * @returns linear r, g, b in 0..1
  */
 export function hexToLinear(hex: string): Float64Array {
+  if (!/^#[0-9a-fA-F]{6}$/.test(hex)) throw new RangeError('hex: a colour written #rrggbb');
   const out = new Float64Array(3);
   for (let k = 0; k < 3; k++) {
     const c = parseInt(hex.slice(1 + 2 * k, 3 + 2 * k), 16) / 255;

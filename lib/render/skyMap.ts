@@ -63,20 +63,25 @@ export function buildSkyMipMap(data: Float32Array, width: number, height: number
   return { channels, levels, texelRad: Math.PI / height };
 }
 
-/** Bilinear sample of one level at (u, v) in [0,1) x [0,1], wrapping in u; adds weight * value into out. */
-function addBilinear(level: MipLevel, channels: number, u: number, v: number, weight: number, out: Float64Array): void {
+/**
+ * Bilinear sample of one level, wrapping in u; adds weight * value into out.
+ * Arguments travel in io ([0] u in [0, 1), [1] v in [0, 1], [3] weight) so no number is boxed per call.
+ */
+function addBilinear(level: MipLevel, channels: number, io: Float64Array, out: Float64Array): void {
   const w = level.width;
   const h = level.height;
-  const x = u * w - 0.5;
-  let y = v * h - 0.5;
+  const weight = io[3];
+  const x = io[0] * w - 0.5;
+  let y = io[1] * h - 0.5;
   if (y < 0) y = 0;
   if (y > h - 1) y = h - 1;
+  // u is in [0, 1), so x is in [-0.5, w - 0.5): the left neighbour wraps only from -1 to w - 1
   const x0f = Math.floor(x);
   const y0 = Math.floor(y);
   const fx = x - x0f;
   const fy = y - y0;
-  const x0 = ((x0f % w) + w) % w;
-  const x1 = x0 + 1 === w ? 0 : x0 + 1;
+  const x0 = x0f < 0 ? w - 1 : x0f;
+  const x1 = x0 + 1 >= w ? 0 : x0 + 1;
   const y1 = y0 + 1 < h ? y0 + 1 : y0;
   const d = level.data;
   const w00 = (1 - fx) * (1 - fy) * weight;
@@ -87,8 +92,17 @@ function addBilinear(level: MipLevel, channels: number, u: number, v: number, we
   const i10 = (y0 * w + x1) * channels;
   const i01 = (y1 * w + x0) * channels;
   const i11 = (y1 * w + x1) * channels;
+  if (channels === 3) {
+    out[0] += w00 * d[i00] + w10 * d[i10] + w01 * d[i01] + w11 * d[i11];
+    out[1] += w00 * d[i00 + 1] + w10 * d[i10 + 1] + w01 * d[i01 + 1] + w11 * d[i11 + 1];
+    out[2] += w00 * d[i00 + 2] + w10 * d[i10 + 2] + w01 * d[i01 + 2] + w11 * d[i11 + 2];
+    return;
+  }
   for (let k = 0; k < channels; k++) out[k] += w00 * d[i00 + k] + w10 * d[i10 + k] + w01 * d[i01 + k] + w11 * d[i11 + k];
 }
+
+/** Scratch of the sampleSkyMap wrapper (one per module instance, i.e. per thread). */
+const wrapIo = new Float64Array(4);
 
 /**
  * Trilinear sample of a sky map in a direction with a given footprint.
@@ -100,23 +114,46 @@ function addBilinear(level: MipLevel, channels: number, u: number, v: number, we
  * @returns out
  */
 export function sampleSkyMap(map: SkyMipMap, u: number, v: number, footprintRad: number, out: Float64Array): Float64Array {
+  wrapIo[0] = u;
+  wrapIo[1] = v;
+  wrapIo[2] = footprintRad;
+  return sampleSkyMapIo(map, wrapIo, out);
+}
+
+/**
+ * sampleSkyMap for hot loops: arguments travel in a typed array, so no number is boxed by the call.
+ * @param map the pyramid
+ * @param io [0] u = RA / 360 degrees (any real, wraps), [1] v = (90 - Dec) / 180 degrees (0..1),
+ *   [2] footprint in radians (>= 0); [0] and [3] are overwritten as scratch
+ * @param out receives `channels` values (overwritten)
+ * @returns out
+ */
+export function sampleSkyMapIo(map: SkyMipMap, io: Float64Array, out: Float64Array): Float64Array {
   const channels = map.channels;
   for (let k = 0; k < channels; k++) out[k] = 0;
-  const uu = u - Math.floor(u);
-  const ratio = footprintRad / map.texelRad;
+  let uu = io[0] - Math.floor(io[0]);
+  if (uu >= 1) uu = 0; // u a hair below an integer rounds up to 1
+  io[0] = uu;
+  const ratio = io[2] / map.texelRad;
   const last = map.levels.length - 1;
+  io[3] = 1;
   if (!(ratio > 1)) {
-    addBilinear(map.levels[0], channels, uu, v, 1, out);
+    addBilinear(map.levels[0], channels, io, out);
     return out;
   }
+  // mip level from the footprint (Williams 1983): log2 only when the footprint exceeds a texel
   const lod = Math.log2(ratio);
   if (lod >= last) {
-    addBilinear(map.levels[last], channels, uu, v, 1, out);
+    addBilinear(map.levels[last], channels, io, out);
     return out;
   }
   const l0 = Math.floor(lod);
   const f = lod - l0;
-  addBilinear(map.levels[l0], channels, uu, v, 1 - f, out);
-  if (f > 0) addBilinear(map.levels[l0 + 1], channels, uu, v, f, out);
+  io[3] = 1 - f;
+  addBilinear(map.levels[l0], channels, io, out);
+  if (f > 0) {
+    io[3] = f;
+    addBilinear(map.levels[l0 + 1], channels, io, out);
+  }
   return out;
 }

@@ -5,10 +5,13 @@
  * visiting at most 8 cells.
  */
 import type { StarCatalogue } from './starCatalogue';
+import { colourIndexOfLog } from './colourTable';
 
 /** Cell edge in unit-vector space; about 1.15 degrees on the sphere. */
 export const STAR_CELL_SIZE = 0.02;
 const CELLS_PER_AXIS = Math.ceil(2 / STAR_CELL_SIZE) + 1;
+/** Floats per star in StarField.packed. */
+export const STAR_STRIDE = 5;
 /** B-V used where the catalogue gives none: the Sun's 0.65 (value from memory). */
 export const DEFAULT_BV = 0.65;
 
@@ -24,6 +27,11 @@ export interface StarField {
   temperatureK: Float64Array;
   /** ln of the temperature in K. */
   logTemperature: Float64Array;
+  /**
+   * The per-pixel star loop's data in one array, STAR_STRIDE floats per star (same order):
+   * x, y, z, flux, colour-table index of the temperature (colourTable.ts).
+   */
+  packed: Float64Array;
   /** cellStart[c]..cellStart[c+1] are the stars of cell c. */
   cellStart: Int32Array;
 }
@@ -70,6 +78,7 @@ export function buildStarField(cat: StarCatalogue, magnitudeLimit: number, tempe
     flux: new Float64Array(n),
     temperatureK: new Float64Array(n),
     logTemperature: new Float64Array(n),
+    packed: new Float64Array(n * STAR_STRIDE),
     cellStart,
   };
   // stable order within a cell (catalogue order) keeps sums, and so bytes, reproducible
@@ -83,6 +92,12 @@ export function buildStarField(cat: StarCatalogue, magnitudeLimit: number, tempe
     const bv = Number.isFinite(cat.bv[i]) ? cat.bv[i] : DEFAULT_BV;
     field.temperatureK[slot] = temperatureFromBv(bv);
     field.logTemperature[slot] = Math.log(field.temperatureK[slot]);
+    const o = slot * STAR_STRIDE;
+    field.packed[o] = ux[k];
+    field.packed[o + 1] = uy[k];
+    field.packed[o + 2] = uz[k];
+    field.packed[o + 3] = field.flux[slot];
+    field.packed[o + 4] = colourIndexOfLog(field.logTemperature[slot]);
   }
   return field;
 }

@@ -62,18 +62,51 @@ export function srgbEncode(linear: number): number {
 const LUT8_SIZE = 65536;
 let lut8: Uint8Array | null = null;
 
-/** 8-bit sRGB code of a display-linear value via a 65536-entry table (exact to the code value except at rounding ties). */
-export function srgbEncode8(linear: number): number {
+/**
+ * The 8-bit sRGB code table behind srgbEncode8: entry i is the code of linear value i / 65535.
+ * @returns 65536 codes (built on first use, then shared)
+ */
+export function srgbLut8(): Uint8Array {
   if (lut8 === null) {
-    lut8 = new Uint8Array(LUT8_SIZE);
-    for (let i = 0; i < LUT8_SIZE; i++) lut8[i] = Math.round(255 * srgbEncode(i / (LUT8_SIZE - 1)));
+    const table = new Uint8Array(LUT8_SIZE);
+    for (let i = 0; i < LUT8_SIZE; i++) table[i] = Math.round(255 * srgbEncode(i / (LUT8_SIZE - 1)));
+    lut8 = table;
   }
-  if (!(linear > 0)) return 0;
-  if (linear >= 1) return 255;
-  return lut8[Math.round(linear * (LUT8_SIZE - 1))];
+  return lut8;
 }
 
-/** 16-bit sRGB code of a display-linear value. */
+/** 8-bit sRGB code of a display-linear value via a 65536-entry table (exact to the code value except at rounding ties). */
+export function srgbEncode8(linear: number): number {
+  const table = lut8 ?? srgbLut8();
+  if (!(linear > 0)) return 0;
+  if (linear >= 1) return 255;
+  return table[Math.round(linear * (LUT8_SIZE - 1))];
+}
+
+/**
+ * Encoded sRGB at linear values i / 65536, for srgbEncode16's interpolation: the curve's second
+ * derivative keeps the linear-interpolation error below 0.005 of a 16-bit code (largest just above
+ * the 0.0031308 knee), so codes equal direct rounding except within 0.005 of a tie.
+ */
+const LUT16_STEPS = 65536;
+let lut16: Float64Array | null = null;
+
+function srgbLut16(): Float64Array {
+  if (lut16 === null) {
+    const table = new Float64Array(LUT16_STEPS + 1);
+    for (let i = 0; i <= LUT16_STEPS; i++) table[i] = srgbEncode(i / LUT16_STEPS);
+    lut16 = table;
+  }
+  return lut16;
+}
+
+/** 16-bit sRGB code of a display-linear value (table interpolation, no Math.pow per sample). */
 export function srgbEncode16(linear: number): number {
-  return Math.round(65535 * srgbEncode(linear));
+  const table = lut16 ?? srgbLut16();
+  if (!(linear > 0)) return 0;
+  if (linear >= 1) return 65535;
+  const x = linear * LUT16_STEPS;
+  const i = Math.floor(x);
+  const v = table[i] + (x - i) * (table[i + 1] - table[i]);
+  return Math.round(65535 * v);
 }

@@ -29,19 +29,36 @@ async function openDemoShow(page: Page) {
   await expect(page.getByTestId('show-name')).toHaveText('The Long Fall', { timeout: 120_000 });
 }
 
-/** Mean absolute difference per channel (RGB, 0..255) and the fraction of channels off by more than `far` levels. */
-function compareRgb(a: Buffer, b: Uint8Array, pixels: number, far: number) {
+/**
+ * Per-channel absolute differences (RGB, 0..255) between an RGBA frame and an RGB one:
+ * the mean and the 99th percentile (from a 256-bin histogram, so nothing is sorted).
+ */
+function diffStats(rgba: Buffer, rgb: Uint8Array, pixels: number): { mean: number; p99: number } {
+  const histogram = new Float64Array(256);
   let sum = 0;
-  let farCount = 0;
   for (let p = 0; p < pixels; p++) {
     for (let c = 0; c < 3; c++) {
-      const d = Math.abs(a[p * 4 + c] - b[p * 3 + c]);
+      const d = Math.abs(rgba[p * 4 + c] - rgb[p * 3 + c]);
+      histogram[d]++;
       sum += d;
-      if (d > far) farCount++;
     }
   }
-  return { mean: sum / (pixels * 3), farFraction: farCount / (pixels * 3) };
+  const count = pixels * 3;
+  let seen = 0;
+  let p99 = 0;
+  while (p99 < 255 && seen + histogram[p99] < 0.99 * count) seen += histogram[p99++];
+  return { mean: sum / count, p99 };
 }
+
+/**
+ * Agreement of the preview (WebGL under SwiftShader, or the CPU fallback) with lib/render, in 8-bit levels:
+ * issue 7's targets for the WebGL view, mean |diff| below 2/255 and 99th percentile below 10/255. The sky-view
+ * spec measures 0.015/255 and 1/255 under SwiftShader; the CPU fallback runs lib/render itself.
+ */
+const AGREEMENT_MEAN_LEVELS = 2;
+const AGREEMENT_P99_LEVELS = 10;
+
+const radiusOf = (request: Record<string, unknown>) => (request.camera as { state: { radiusM: number } }).state.radiusM;
 
 test.describe('scene editor', () => {
   test('should let a producer build a drop from scratch, see the preview follow the radius, scrub, and read the engine values', async ({ page }) => {
@@ -59,6 +76,9 @@ test.describe('scene editor', () => {
 
     const editor = new SceneEditorPage(page);
     const first = await editor.waitForFullFrame();
+    // Issue 7: the editor shows the WebGL view by default (SwiftShader offers WebGL2 here).
+    expect(first.path).toBe('webgl');
+    await expect(page.getByTestId('sky-view-path')).toHaveAttribute('data-path', 'webgl');
     const before = await editor.framePixels();
 
     // Mouse and keyboard: make the first segment a drop from rest, start radius 10 r_s.
@@ -68,16 +88,18 @@ test.describe('scene editor', () => {
     await radius.press('Control+a');
     await radius.pressSequentially('10');
     await expect(page.getByTestId('segment-0-summary')).toContainText('ends at the singularity');
-    const second = await editor.waitForFullFrame(first.frames);
-    await expect.poll(async () => ((await editor.waitForFullFrame(0)).request.camera as { state: { radiusM: number } }).state.radiusM, { timeout: 120_000 }).toBeCloseTo(20, 9);
+    const second = await editor.waitForFullFrame((request) => Math.abs(radiusOf(request) - 20) < 1e-9);
+    expect(radiusOf(second.request)).not.toBeCloseTo(radiusOf(first.request), 3);
     const after = await editor.framePixels();
-    expect(second.frames).toBeGreaterThan(first.frames);
-    const changed = compareRgb(before.rgba, rgbOf(after.rgba), Math.min(before.width * before.height, after.width * after.height), 16);
+    expect(after.width * after.height).toBe(before.width * before.height);
+    const changed = diffStats(before.rgba, rgbOf(after.rgba), before.width * before.height);
     console.log(`preview change from 40 r_s hover to 10 r_s drop: mean |diff| ${changed.mean.toFixed(2)} levels`);
     expect(changed.mean).toBeGreaterThan(1);
 
     // Scrub with the mouse to about 70 % of the shot.
     const scrubber = page.getByTestId('scrubber');
+    // the mouse clicks at viewport coordinates: bring the scrubber (below the preview) into view first
+    await scrubber.scrollIntoViewIfNeeded();
     await expect
       .poll(async () => {
         const box = (await scrubber.boundingBox())!;
@@ -112,7 +134,7 @@ test.describe('scene editor', () => {
   test('should keep operators out of scenes and show advisors a read-only editor', async ({ page, browser }) => {
     await signIn(page, 'advisor');
     await openDemoShow(page);
-    await page.getByRole('link', { name: 'Drop through the horizon' }).click();
+    await page.getByRole('link', { name: 'Drop through the horizon', exact: true }).click();
     await expect(page.getByTestId('scene-editor')).toHaveAttribute('data-can-edit', 'false', { timeout: 180_000 });
     await expect(page.getByTestId('read-only-notice')).toBeVisible();
     await expect(page.getByTestId('save-revision')).toHaveCount(0);
@@ -133,27 +155,82 @@ test.describe('scene editor', () => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await signIn(page, 'producer');
+    // exact names: other tests add scenes to the shared demo show whose names start with these
     for (const demo of DEMO_SCENES) {
       await openDemoShow(page);
-      await page.getByRole('link', { name: demo.name }).click();
+      await page.getByRole('link', { name: demo.name, exact: true }).click();
       await expect(page.getByTestId('scene-title')).toHaveText(demo.name, { timeout: 180_000 });
       const editor = new SceneEditorPage(page);
       const frame = await editor.waitForFullFrame();
       const shown = await editor.framePixels();
-      // Same request rendered here with lib/render (the browser drew it 1:1 on the canvas).
-      const parsed = parseFrameRequest(frame.request);
-      const request = frame.skyMissing
-        ? { ...parsed, sky: { ...parsed.sky, stars: { ...parsed.sky.stars, enabled: false }, milkyWay: { ...parsed.sky.milkyWay, enabled: false } } }
-        : parsed;
+      // Same request rendered here with lib/render.
+      const request = parseFrameRequest(frame.request);
       expect(shown.width).toBe(request.width);
       expect(shown.height).toBe(request.height);
+      expect(shown.rgba.length).toBe(request.width * request.height * 4);
       const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
-      const diff = compareRgb(shown.rgba, reference, request.width * request.height, 8);
-      console.log(`${demo.slug}: ${request.width}x${request.height}, sky data ${frame.skyMissing ? 'missing (grids and shadow compared)' : 'loaded'}; mean |diff| ${diff.mean.toFixed(3)} levels, ${(diff.farFraction * 100).toFixed(3)} % channels off by > 8`);
-      // Tolerance: same code in two V8 builds; last-ulp differences in Math.* may flip a few edge pixels.
-      expect(diff.mean).toBeLessThan(0.5);
-      expect(diff.farFraction).toBeLessThan(0.001);
+      const diff = diffStats(shown.rgba, reference, request.width * request.height);
+      console.log(`${demo.slug}: ${request.width}x${request.height} on the ${frame.path} path; mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
+      expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
+      expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
     }
+    expect(errors).toEqual([]);
+  });
+
+  test('should fall back to the CPU renderer when WebGL is lost, with light frames while scrubbing and full detail at rest', async ({ page }) => {
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await signIn(page, 'producer');
+    await openDemoShow(page);
+    await page.getByRole('link', { name: 'Drop through the horizon', exact: true }).click();
+    await expect(page.getByTestId('scene-title')).toHaveText('Drop through the horizon', { timeout: 180_000 });
+    const editor = new SceneEditorPage(page);
+    const first = await editor.waitForFullFrame();
+    expect(first.path).toBe('webgl');
+
+    // The same loss a driver reset causes: the view must switch to lib/render in a worker without a reload.
+    await page.evaluate(() => {
+      const canvas = document.querySelector('[data-testid="sky-view-webgl"] canvas') as HTMLCanvasElement;
+      (canvas.getContext('webgl2') as WebGL2RenderingContext).getExtension('WEBGL_lose_context')!.loseContext();
+    });
+    await expect(page.getByTestId('sky-view-path')).toHaveAttribute('data-path', 'cpu');
+    await expect(page.getByTestId('sky-view-path')).toContainText('context was lost');
+    const rested = await editor.waitForFullFrame();
+    expect(rested.path).toBe('cpu');
+    const full = { width: rested.request.width as number, height: rested.request.height as number };
+
+    // Drag the scrubber: while it moves the CPU path asks for half-size frames. The light phase lasts only
+    // while the scrubber moves plus a short rest, so every size asked for is recorded as it happens.
+    await page.evaluate(() => {
+      const preview = document.querySelector('[data-testid=preview]')!;
+      const sizes: string[] = [];
+      (window as unknown as { __previewSizes: string[] }).__previewSizes = sizes;
+      new MutationObserver(() => {
+        const request = JSON.parse(preview.getAttribute('data-request') || '{}') as { width?: number; height?: number };
+        sizes.push(`${preview.getAttribute('data-detail')} ${request.width}x${request.height}`);
+      }).observe(preview, { attributes: true, attributeFilter: ['data-detail', 'data-request'] });
+    });
+    const scrubber = page.getByTestId('scrubber');
+    await scrubber.scrollIntoViewIfNeeded();
+    const box = (await scrubber.boundingBox())!;
+    await page.mouse.move(box.x + box.width * 0.2, box.y + box.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width * 0.6, box.y + box.height / 2, { steps: 5 });
+    await page.mouse.up();
+    await expect
+      .poll(async () => page.evaluate(() => (window as unknown as { __previewSizes: string[] }).__previewSizes))
+      .toContain(`interactive ${full.width / 2}x${full.height / 2}`);
+
+    // At rest it refines to the full-detail frame, which is lib/render's own picture.
+    const settled = await editor.waitForFullFrame((request) => request.width === full.width && radiusOf(request) !== radiusOf(rested.request));
+    expect(settled.path).toBe('cpu');
+    const shown = await editor.framePixels();
+    const request = parseFrameRequest(settled.request);
+    const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
+    const diff = diffStats(shown.rgba, reference, request.width * request.height);
+    console.log(`CPU fallback, ${request.width}x${request.height}: mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
+    expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
+    expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
     expect(errors).toEqual([]);
   });
 });

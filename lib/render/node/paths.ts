@@ -20,7 +20,12 @@ export function renderCacheDir(): string {
   return path.join(pkgDir, '..', '..', '.data', 'cache');
 }
 
-/** The worker-thread entry file of the render pool. */
+/** The worker-thread entry file of the render pool (TypeScript). */
 export function renderWorkerFile(): string {
   return path.join(__dirname, 'worker.ts');
+}
+
+/** The worker threads' main module: a CommonJS file that loads renderWorkerFile() through tsx. */
+export function renderWorkerBootstrapFile(): string {
+  return path.join(__dirname, 'workerBootstrap.cjs');
 }

@@ -1,28 +1,31 @@
 /**
- * Render a whole frame on all cores (Node only): compute the lensing table once
- * in this thread, put it in shared memory, and let a piscina pool of worker
- * threads render bands of rows into an encoded-sample buffer, which sharp then
- * turns into PNG or JPEG bytes. Memory stays bounded by the final sample buffer
- * plus one band per worker, so 8192 x 8192 frames fit.
+ * Render a whole frame on all cores (Node only): compute the lensing table
+ * once in this thread and put it in shared memory, let the pool's workers
+ * share the frame's row bands through an atomic counter, and join the result.
+ * PNG bands are compressed by the worker that rendered them and joined here
+ * as IDAT chunks (png.ts), so encoding runs in parallel too; JPEG samples are
+ * written into one shared buffer and encoded by sharp. Memory stays bounded
+ * by the compressed frame (PNG) or the sample buffer (JPEG), so 8192 x 8192
+ * frames fit.
  */
 import os from 'node:os';
 import { createHash } from 'node:crypto';
-import Piscina from 'piscina';
 import { computeLensTable, type SkyAssets } from '../frame';
 import type { RayTableArrays } from '../engine';
 import { parseFrameRequest, type FrameRequest } from '../schema';
-import { encodeImage } from './encode';
-import { renderWorkerFile } from './paths';
-import { renderBand, type BandTask } from './worker';
-import { loadSkyAssets } from './assets';
 import type { StarCatalogue } from '../starCatalogue';
+import { encodeImage } from './encode';
+import { loadSkyAssets } from './assets';
+import { assemblePng, type PngBandPiece } from './png';
+import { bandRowsForWidth, renderClaimedBands, type BandResult, type FrameJob, type FrameOutput } from './frameJob';
+import { createRenderPool, type RenderPool } from './renderPool';
+
+export { createRenderPool, type RenderPool };
 
 /** Options of {@link renderFrameToImage}. */
 export interface RenderFrameOptions {
   /** worker threads; 0 renders in this thread; default: all cores */
   threads?: number;
-  /** rows per task; default about 64k pixels per band */
-  bandRows?: number;
   /** called after each band with the fraction done, 0..1 */
   onProgress?: (fraction: number) => void;
   /** reuse a pool across frames (its thread count wins over `threads`) */
@@ -37,37 +40,12 @@ export interface RenderedImage {
   width: number;
   height: number;
   format: FrameRequest['output']['format'];
-  /** seconds: lensing table, bands (all threads), encoding */
-  timings: { tableS: number; bandsS: number; encodeS: number; totalS: number };
-}
-
-/** A pool of render worker threads. */
-export interface RenderPool {
-  threads: number;
-  run(task: BandTask): Promise<Uint8Array | Uint16Array>;
-  close(): Promise<void>;
-}
-
-/**
- * Start a pool of render workers. Worker files are TypeScript, so each worker
- * loads tsx's loader (the project runs its scripts with tsx).
- * @param threads number of worker threads, 1..64
- * @returns the pool; close it when done
- */
-export function createRenderPool(threads: number): RenderPool {
-  if (!Number.isInteger(threads) || threads < 1 || threads > 64) throw new RangeError('threads: integer 1..64');
-  const piscina = new Piscina({
-    filename: renderWorkerFile(),
-    minThreads: threads,
-    maxThreads: threads,
-    idleTimeout: 60_000,
-    execArgv: ['--import', 'tsx'],
-  });
-  return {
-    threads,
-    run: (task) => piscina.run(task),
-    close: () => piscina.destroy(),
-  };
+  /**
+   * Seconds. Wall clock: lensing table, bands (shading and, for PNG, compression, on all threads),
+   * final encoding (PNG: joining the pieces; JPEG: sharp), total. Thread time summed over threads:
+   * shading, compression.
+   */
+  timings: { tableS: number; bandsS: number; encodeS: number; totalS: number; shadeThreadS: number; compressThreadS: number };
 }
 
 /** Copy the engine's ray table into shared memory so every worker reads the same arrays without copies. */
@@ -106,52 +84,77 @@ async function sharedSkyAssets(req: FrameRequest, panoramaBuffer?: Buffer): Prom
 /**
  * Render a frame request to encoded image bytes.
  * @param input frame request (validated here)
- * @param options threads, band size, progress callback, shared pool
- * @returns bytes, size and timings; the same request gives the same bytes whatever the threads or bands
+ * @param options threads, progress callback, shared pool, panorama bytes
+ * @returns bytes, size and timings; the same request gives the same bytes whatever the threads
+ * @throws RangeError for an invalid request or thread count
  */
 export async function renderFrameToImage(input: unknown, options: RenderFrameOptions = {}): Promise<RenderedImage> {
   const req = parseFrameRequest(input);
+  const threads = options.pool ? options.pool.threads : (options.threads ?? os.availableParallelism());
+  if (!Number.isInteger(threads) || threads < 0 || threads > 64) throw new RangeError('options.threads: integer 0..64');
   const { key: assetKey, assets } = await sharedSkyAssets(req, options.panoramaBuffer);
   const t0 = performance.now();
   const lens = shareLensTable(computeLensTable(req));
   const t1 = performance.now();
   const { width, height } = req;
-  const bitDepth: 8 | 16 = req.output.format === 'png16' ? 16 : 8;
-  const samples = bitDepth === 16 ? new Uint16Array(width * height * 3) : new Uint8Array(width * height * 3);
-  const bandRows = options.bandRows ?? Math.max(1, Math.floor(65536 / width));
-  if (!Number.isInteger(bandRows) || bandRows < 1) throw new RangeError('bandRows: integer >= 1');
-  const frameKey = createHash('sha256').update(JSON.stringify(req)).digest('hex');
-  const threads = options.pool ? options.pool.threads : (options.threads ?? os.availableParallelism());
+  const format = req.output.format;
+  const bitDepth: 8 | 16 = format === 'png16' ? 16 : 8;
+  let output: FrameOutput;
+  if (format === 'jpeg') {
+    output = { kind: 'samples', bitDepth, samples: new Uint8Array(new SharedArrayBuffer(width * height * 3)) };
+  } else {
+    output = { kind: 'png', bitDepth };
+  }
+  const bandRows = bandRowsForWidth(width);
+  const bandCount = Math.ceil(height / bandRows);
+  const job: FrameJob = {
+    frameKey: createHash('sha256').update(JSON.stringify(req)).digest('hex'),
+    request: req,
+    lens,
+    assets,
+    assetKey,
+    output,
+    bandRows,
+    bandCount,
+    nextBand: new Int32Array(new SharedArrayBuffer(4)),
+  };
+  const pieces: PngBandPiece[] = new Array(bandCount);
+  let rowsDone = 0;
+  let shadeMs = 0;
+  let compressMs = 0;
+  const onBand = (result: BandResult) => {
+    if (result.piece) pieces[result.band] = result.piece;
+    shadeMs += result.shadeMs;
+    compressMs += result.compressMs;
+    rowsDone += Math.min(bandRows, height - result.band * bandRows);
+    options.onProgress?.(rowsDone / height);
+  };
   const ownPool = !options.pool && threads > 0 ? createRenderPool(threads) : null;
   const pool = options.pool ?? ownPool;
-  let done = 0;
   try {
-    const jobs: Promise<void>[] = [];
-    for (let y0 = 0; y0 < height; y0 += bandRows) {
-      const y1 = Math.min(height, y0 + bandRows);
-      const task: BandTask = { frameKey, request: req, lens, assets, assetKey, y0, y1, bitDepth };
-      const run = pool ? pool.run(task) : Promise.resolve(renderBand(task));
-      jobs.push(
-        run.then((band) => {
-          samples.set(band, y0 * width * 3);
-          done += y1 - y0;
-          options.onProgress?.(done / height);
-        }),
-      );
-      if (!pool) await jobs[jobs.length - 1];
-    }
-    await Promise.all(jobs);
+    if (pool) await pool.renderJob(job, onBand);
+    else renderClaimedBands(job, onBand);
   } finally {
     await ownPool?.close();
   }
   const t2 = performance.now();
-  const bytes = await encodeImage(samples, width, height, req.output.format, req.output.jpegQuality);
+  const bytes =
+    output.kind === 'png'
+      ? assemblePng(width, height, bitDepth, pieces)
+      : await encodeImage(Buffer.from(output.samples.buffer, 0, output.samples.byteLength), width, height, 'jpeg', req.output.jpegQuality);
   const t3 = performance.now();
   return {
     bytes,
     width,
     height,
-    format: req.output.format,
-    timings: { tableS: (t1 - t0) / 1000, bandsS: (t2 - t1) / 1000, encodeS: (t3 - t2) / 1000, totalS: (t3 - t0) / 1000 },
+    format,
+    timings: {
+      tableS: (t1 - t0) / 1000,
+      bandsS: (t2 - t1) / 1000,
+      encodeS: (t3 - t2) / 1000,
+      totalS: (t3 - t0) / 1000,
+      shadeThreadS: shadeMs / 1000,
+      compressThreadS: compressMs / 1000,
+    },
   };
 }

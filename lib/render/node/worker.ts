@@ -1,51 +1,36 @@
 /**
- * Worker-thread entry of the render pool (Node only, loaded by piscina). Each
- * task renders one band of rows with the frame's shared lensing table and
- * shared sky assets; the frame plan (star field, sky maps) is built once per
- * frame per worker. Imports only the pure core, so workers start fast.
+ * Worker-thread entry of the render pool (Node only). A worker receives each
+ * frame job once, then claims bands from the job's shared counter until none
+ * is left, posting every finished band (its PNG piece, if any) back to the
+ * pool; the frame plan is built once per frame per worker. Imports only the
+ * pure core and the PNG helper, so workers start fast.
  */
-import { move } from 'piscina';
-import { prepareFrame, type FramePlan, type SkyAssets } from '../frame';
-import type { RayTableArrays } from '../engine';
-import { renderBandEncoded } from '../renderRows';
-import type { FrameRequest } from '../schema';
+import { parentPort } from 'node:worker_threads';
+import { renderClaimedBands, type BandResult, type FrameJob } from './frameJob';
 
-/** One task: a band of rows of one frame. */
-export interface BandTask {
-  frameKey: string;
-  /** validated request (defaults filled) */
-  request: FrameRequest;
-  lens: RayTableArrays | null;
-  /** sky assets in shared memory, and a key naming them (same key = same content) */
-  assets: SkyAssets;
-  assetKey: string;
-  y0: number;
-  y1: number;
-  bitDepth: 8 | 16;
-}
+/** Messages from the pool to a worker. */
+export type ToWorker = { type: 'frame'; jobId: number; job: FrameJob };
 
-let cachedPlan: { key: string; plan: FramePlan } | null = null;
-let cachedAssets: { key: string; assets: SkyAssets } | null = null;
+/** Messages from a worker to the pool. */
+export type FromWorker =
+  | { type: 'ready' }
+  | { type: 'band'; jobId: number; result: BandResult }
+  | { type: 'done'; jobId: number; error: string | null };
 
-/**
- * Render one band in this thread (also used when the pool has no workers).
- * @param task band task
- * @returns encoded samples of the band (3 per pixel)
- */
-export function renderBand(task: BandTask): Uint8Array | Uint16Array {
-  if (!cachedPlan || cachedPlan.key !== task.frameKey) {
-    // keep one assets object per key so the plan's per-asset caches (mip pyramids) survive across frames
-    if (!cachedAssets || cachedAssets.key !== task.assetKey) cachedAssets = { key: task.assetKey, assets: task.assets };
-    cachedPlan = { key: task.frameKey, plan: prepareFrame(task.request, cachedAssets.assets, task.lens) };
-  }
-  return renderBandEncoded(cachedPlan.plan, { y0: task.y0, y1: task.y1 }, task.bitDepth);
-}
-
-/**
- * Piscina entry: render one band.
- * @param task band task
- * @returns encoded samples of the band (3 per pixel), moved to the caller's thread
- */
-export default function renderBandTask(task: BandTask): Uint8Array | Uint16Array {
-  return move(renderBand(task)) as Uint8Array | Uint16Array;
+const port = parentPort;
+if (port) {
+  port.on('message', (message: ToWorker) => {
+    if (message.type !== 'frame') return;
+    const { jobId, job } = message;
+    let error: string | null = null;
+    try {
+      renderClaimedBands(job, (result) => port.postMessage({ type: 'band', jobId, result } satisfies FromWorker));
+    } catch (err) {
+      error = err instanceof Error ? `${err.name}: ${err.message}` : String(err);
+      // stop the other workers claiming bands of a frame that cannot finish
+      Atomics.store(job.nextBand, 0, job.bandCount);
+    }
+    port.postMessage({ type: 'done', jobId, error } satisfies FromWorker);
+  });
+  port.postMessage({ type: 'ready' } satisfies FromWorker);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { exposureScale, srgbEncode, srgbEncode8, toneMapInPlace } from '@/lib/render/toneMap';
+import { exposureScale, srgbEncode, srgbEncode16, srgbEncode8, toneMapInPlace } from '@/lib/render/toneMap';
 import { close } from './helpers';
 
 describe('srgbEncode', () => {
@@ -20,6 +20,23 @@ describe('srgbEncode', () => {
       if (srgbEncode8(l) !== Math.round(exact)) mismatches++;
     }
     expect(mismatches).toBe(0);
+  });
+
+  it('should give the same 16-bit codes through table interpolation as by direct rounding, away from rounding ties', () => {
+    // IEC 61966-2-1 evaluated directly with Math.pow is the reference; 200,001 values, denser near the 0.0031308 knee
+    let mismatches = 0;
+    let checked = 0;
+    for (let i = 0; i <= 200000; i++) {
+      const l = (i / 200000) ** 3;
+      const exact = 65535 * srgbEncode(l);
+      if (Math.abs(exact - Math.floor(exact) - 0.5) < 0.01) continue;
+      checked++;
+      if (srgbEncode16(l) !== Math.round(exact)) mismatches++;
+    }
+    expect(checked).toBeGreaterThan(190000);
+    expect(mismatches).toBe(0);
+    expect(srgbEncode16(-1)).toBe(0);
+    expect(srgbEncode16(2)).toBe(65535);
   });
 });
 
