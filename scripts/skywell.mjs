@@ -187,11 +187,15 @@ async function bench() {
   const dir = path.join('tests', 'bench');
   const files = fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith('.bench.ts')).sort() : [];
   if (!files.length) fail('no benchmarks found under tests/bench/*.bench.ts');
+  // Every bench runs even if one fails; the command fails at the end if any did.
+  const failed = [];
   for (const file of files) {
     log(`bench: ${file}`);
-    tsx([path.join(dir, file)], childEnv);
+    const result = spawnSync(process.execPath, ['--conditions=react-server', '--import', 'tsx', path.join(dir, file)], { stdio: 'inherit', env: childEnv });
+    if (result.status !== 0) failed.push(file);
   }
-  stopAll(0);
+  if (failed.length) log(`benches that failed: ${failed.join(', ')}`);
+  stopAll(failed.length ? 1 : 0);
 }
 
 switch (command) {

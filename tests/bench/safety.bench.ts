@@ -9,8 +9,8 @@
  * Exits 0; nothing is asserted.
  */
 import os from 'node:os';
-import { createFlashDetector } from '../../../lib/safety/flashDetector';
-import type { Projection } from '../../../lib/render/schema';
+import { createFlashDetector } from '@/lib/safety/flashDetector';
+import type { Projection } from '@/lib/render/schema';
 
 const DOME: Projection = { kind: 'dome', apertureDeg: 180, tiltDeg: 0 };
 
