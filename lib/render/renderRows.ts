@@ -14,9 +14,6 @@ export interface RowBand {
   y1: number;
 }
 
-const TONE_NONE = 0;
-const TONE_REINHARD = 1;
-const TONE_EXPONENTIAL = 2;
 const encode16 = srgbEncode16;
 
 function checkBand(plan: FramePlan, band: RowBand): void {
@@ -33,9 +30,6 @@ function checkBand(plan: FramePlan, band: RowBand): void {
 export class RowRenderer {
   private readonly shader: Shader;
   private readonly width: number;
-  private readonly samples: number;
-  private readonly scale: number;
-  private readonly tone: number;
 
   /**
    * @param plan frame plan
@@ -47,10 +41,6 @@ export class RowRenderer {
   ) {
     this.shader = new Shader(plan, tracer);
     this.width = plan.req.width;
-    this.samples = plan.req.supersampling;
-    this.scale = plan.exposure;
-    const op = plan.req.exposure.toneMap;
-    this.tone = op === 'none' ? TONE_NONE : op === 'reinhard' ? TONE_REINHARD : TONE_EXPONENTIAL;
   }
 
   /**
@@ -67,73 +57,12 @@ export class RowRenderer {
       throw new RangeError(`x0, x1: integer columns with 0 <= x0 <= x1 <= ${this.width}`);
     }
     if (!Number.isInteger(offset) || offset < 0 || offset + (x1 - x0) * 3 > out.length) throw new RangeError('offset: the row must fit in out');
+    // the per-pixel work lives in a per-pixel method: V8 optimizes it by call count, whereas a long
+    // loop here may be left in its baseline tier after an early deoptimization (seen: frames 4x slower)
     const shader = this.shader;
-    const n = this.samples;
-    const inv = 1 / (n * n);
-    const scale = this.scale * inv;
-    const tone = this.tone;
-    const rad = shader.result.radiance;
-    const ov = shader.result.overlay;
     let o = offset;
     for (let x = x0; x < x1; x++) {
-      let r0: number;
-      let r1: number;
-      let r2: number;
-      let o0: number;
-      let o1: number;
-      let o2: number;
-      let a: number;
-      if (n === 1) {
-        shader.shadeSample(x, y, 0, 0);
-        r0 = rad[0];
-        r1 = rad[1];
-        r2 = rad[2];
-        o0 = ov[0];
-        o1 = ov[1];
-        o2 = ov[2];
-        a = ov[3];
-      } else {
-        r0 = r1 = r2 = o0 = o1 = o2 = a = 0;
-        for (let sy = 0; sy < n; sy++) {
-          for (let sx = 0; sx < n; sx++) {
-            shader.shadeSample(x, y, sx, sy);
-            r0 += rad[0];
-            r1 += rad[1];
-            r2 += rad[2];
-            o0 += ov[0];
-            o1 += ov[1];
-            o2 += ov[2];
-            a += ov[3];
-          }
-        }
-        o0 *= inv;
-        o1 *= inv;
-        o2 *= inv;
-        a *= inv;
-      }
-      r0 *= scale;
-      r1 *= scale;
-      r2 *= scale;
-      if (tone === TONE_EXPONENTIAL) {
-        // photographic film response, per channel (toneMap.ts)
-        r0 = 1 - Math.exp(-r0);
-        r1 = 1 - Math.exp(-r1);
-        r2 = 1 - Math.exp(-r2);
-      } else if (tone === TONE_REINHARD) {
-        // Reinhard et al. 2002 on luminance, keeping hue (toneMap.ts)
-        const s = 1 / (1 + 0.2126 * r0 + 0.7152 * r1 + 0.0722 * r2);
-        r0 *= s;
-        r1 *= s;
-        r2 *= s;
-      }
-      if (a > 0) {
-        r0 = r0 * (1 - a) + o0;
-        r1 = r1 * (1 - a) + o1;
-        r2 = r2 * (1 - a) + o2;
-      }
-      out[o] = r0;
-      out[o + 1] = r1;
-      out[o + 2] = r2;
+      shader.shadePixel(x, y, out, o);
       o += 3;
     }
   }

@@ -24,7 +24,11 @@ if (port) {
     const { jobId, job } = message;
     let error: string | null = null;
     try {
-      renderClaimedBands(job, (result) => port.postMessage({ type: 'band', jobId, result } satisfies FromWorker));
+      renderClaimedBands(job, (result) => {
+        // the piece's bytes are moved, not copied (each chunk owns its ArrayBuffer: png.ts pngChunk)
+        const transfer = result.piece ? [result.piece.chunk.buffer as ArrayBuffer] : [];
+        port.postMessage({ type: 'band', jobId, result } satisfies FromWorker, transfer);
+      });
     } catch (err) {
       error = err instanceof Error ? `${err.name}: ${err.message}` : String(err);
       // stop the other workers claiming bands of a frame that cannot finish
