@@ -18,5 +18,8 @@ export default defineConfig({
     hookTimeout: 60_000,
     fileParallelism: false,
     pool: 'forks',
+    // Frames queued by the tests expire after 6 s, so a killed worker's frames come back to the
+    // queue quickly (the worker processes of tests/support/workers.ts use the same values).
+    env: { RENDER_FRAME_TIMEOUT_SECONDS: '6', QUEUE_MAINTENANCE_SECONDS: '1' },
   },
 });

@@ -155,13 +155,26 @@ async function serve(dev) {
 }
 
 async function test() {
+  // `npm test -- tests/integration/renders tests/e2e/renders.spec.ts` runs only those files: paths under
+  // tests/e2e go to Playwright, the rest to vitest, and a suite with no paths is skipped.
+  const only = process.argv.slice(3);
+  const e2eOnly = only.filter((p) => p.includes('e2e'));
+  const vitestOnly = only.filter((p) => !p.includes('e2e'));
+  const runVitest = !only.length || vitestOnly.length > 0;
+  const runPlaywright = !only.length || e2eOnly.length > 0;
   ensureChromium();
   const childEnv = await prepareServices();
   const results = [];
 
-  log('unit and integration tests (vitest)');
-  const vitest = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run'], { stdio: 'inherit', env: childEnv });
-  results.push(['vitest', vitest.status]);
+  if (runVitest) {
+    log('unit and integration tests (vitest)');
+    const vitest = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...vitestOnly], { stdio: 'inherit', env: childEnv });
+    results.push(['vitest', vitest.status]);
+  }
+  if (!runPlaywright) {
+    log(`summary: ${results.map(([name, status]) => `${name} ${status === 0 ? 'passed' : 'FAILED'}`).join(', ')}`);
+    stopAll(results.some(([, status]) => status !== 0) ? 1 : 0);
+  }
 
   buildIfNeeded(childEnv);
   spawnChild(['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(local.appPort)], childEnv, 'next start (test)');
@@ -170,7 +183,7 @@ async function test() {
   await waitForPort(local.appPort, 'the app (test)', 120_000);
 
   log('browser tests (Playwright in Debian Chromium)');
-  const playwright = spawnSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test'], {
+  const playwright = spawnSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', ...e2eOnly], {
     stdio: 'inherit',
     env: { ...childEnv, SKYWELL_BASE_URL: `http://localhost:${local.appPort}`, PLAYWRIGHT_TRANSFORM_CACHE_DIR: path.join(root, '.data/test/playwright-cache') },
   });
@@ -185,8 +198,11 @@ async function bench() {
   // Benches that need the database and object store get their own set, like tests.
   const childEnv = await prepareServices();
   const dir = path.join('tests', 'bench');
-  const files = fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith('.bench.ts')).sort() : [];
-  if (!files.length) fail('no benchmarks found under tests/bench/*.bench.ts');
+  // `npm run bench -- farm webgl` runs only the benches whose file names contain one of the words
+  const only = process.argv.slice(3);
+  const files = (fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith('.bench.ts')).sort() : [])
+    .filter((f) => !only.length || only.some((word) => f.includes(word)));
+  if (!files.length) fail(`no benchmarks found under tests/bench/*.bench.ts${only.length ? ` matching ${only.join(', ')}` : ''}`);
   // Every bench runs even if one fails; the command fails at the end if any did.
   const failed = [];
   for (const file of files) {

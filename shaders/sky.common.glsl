@@ -2,9 +2,15 @@
 // frame -> (boost) -> look angle psi -> ray table -> direction on the sky or on the horizon.
 // Included by sky.lensed.frag and sky.directions.frag (scripts/build-shaders.mjs inlines it).
 //
+// Compile-time switches (#define; each combination is its own program, chosen per frame by
+// components/sky-view/gpu/gpu-sky-renderer.ts from lib/webgl/shaderVariant.ts, so no pixel pays for code
+// of a setting that is off):
+//   PROJECTION        0 flat, 1 dome master, 2 equirectangular, 3 cube face (lib/webgl PROJECTION_CODES)
+//   LENSING           1 lensed; 0 plain sky remap (phi = psi, g = 1)
+//   BOOST             1 when the camera moves relative to its radial reference observer (uBoostVelocity != 0)
+//
 // Uniforms (units):
 //   uFrameSizePx      vec2   frame width, height in pixels
-//   uProjectionKind   int    0 flat, 1 dome master, 2 equirectangular, 3 cube face (lib/webgl PROJECTION_CODES)
 //   uFocalPx          float  flat / cube face focal length, pixels
 //   uRadPerPx         float  dome: radians per pixel from the centre
 //   uHalfApertureRad  float  dome: half aperture, radians
@@ -12,9 +18,9 @@
 //   uViewToCamera     mat3   view (x right, y up, z centre) -> camera frame (e1 outward radial, e2, e3)
 //   uCameraToHole     mat3   camera frame -> hole frame (J2000 equatorial axes)
 //   uBoostVelocity    vec3   camera velocity relative to the radial reference observer, camera frame, units of c
-//   uLensing          bool   false: plain sky remap (phi = psi, g = 1)
 //   uEps, uUr         float  reference observer's -u_t and u^r (geometric units)
 //   uSegmentCount     int    ray-table segments in use
+//   uSegHi[j]         vec4   upper psi bounds (rad) of segments 4j..4j+3; 1e30 for the last segment and unused ones
 //   uSegA[i]          vec4   (map 0 uniform / 1 log from left / 2 log to right, psi_hi rad, anchor rad, fate)
 //   uSegB[i]          vec4   (t0, dt, node offset, node count) of the sampling variable t (psi or ln|psi - anchor|)
 //   uRayTable         sampler2D RG float: (phi rad, dphi/dt) per node, RAY_TABLE_WIDTH texels per row
@@ -28,8 +34,23 @@
 #define RAY_TABLE_WIDTH 1024
 #define PI 3.141592653589793
 
+// WHEN(c) { ... } runs the block only where c holds, like `if`, but as a loop of at most one pass. Software
+// WebGL (SwiftShader) runs both sides of an `if` for every 2 x 2 pixel quad under a lane mask, so work in an
+// untaken branch still costs; a loop whose condition fails in all lanes of the quad is skipped. On a hardware
+// GPU it costs what an `if` costs. Never `break` or `continue` an enclosing loop from inside a WHEN block.
+#define WHEN(c) for (int when_ = 0; when_ < ((c) ? 1 : 0); when_++)
+
+#ifndef PROJECTION
+#define PROJECTION 0
+#endif
+#ifndef LENSING
+#define LENSING 1
+#endif
+#ifndef BOOST
+#define BOOST 0
+#endif
+
 uniform vec2 uFrameSizePx;
-uniform int uProjectionKind;
 uniform float uFocalPx;
 uniform float uRadPerPx;
 uniform float uHalfApertureRad;
@@ -37,10 +58,10 @@ uniform mat3 uCubeFace;
 uniform mat3 uViewToCamera;
 uniform mat3 uCameraToHole;
 uniform vec3 uBoostVelocity;
-uniform bool uLensing;
 uniform float uEps;
 uniform float uUr;
 uniform int uSegmentCount;
+uniform vec4 uSegHi[MAX_SEGMENTS / 4];
 uniform vec4 uSegA[MAX_SEGMENTS];
 uniform vec4 uSegB[MAX_SEGMENTS];
 uniform highp sampler2D uRayTable;
@@ -58,28 +79,29 @@ struct Trace {
 // Frame point (px from the left, py from the top) -> unit view direction; returns the pixel's angular size or -1.
 float pixelToView(vec2 p, out vec3 view) {
   vec2 size = uFrameSizePx;
-  if (uProjectionKind == 1) {
-    vec2 d = vec2(p.x - 0.5 * size.x, 0.5 * size.x - p.y);
-    float rho = length(d);
-    float theta = rho * uRadPerPx;
-    if (theta > uHalfApertureRad) { view = vec3(0.0); return -1.0; }
-    float s = rho > 0.0 ? sin(theta) / rho : 0.0;
-    view = vec3(d * s, cos(theta));
-    return uRadPerPx;
-  }
-  if (uProjectionKind == 2) {
-    float lon = (p.x / size.x - 0.5) * 2.0 * PI;
-    float lat = (0.5 - p.y / size.y) * PI;
-    float c = cos(lat);
-    view = vec3(c * sin(lon), sin(lat), c * cos(lon));
-    return max(2.0 * PI * c / size.x, PI / size.y);
-  }
+#if PROJECTION == 1
+  vec2 d = vec2(p.x - 0.5 * size.x, 0.5 * size.x - p.y);
+  float rho = length(d);
+  float theta = rho * uRadPerPx;
+  float s = rho > 0.0 ? sin(theta) / rho : 0.0;
+  view = vec3(d * s, cos(theta));
+  return theta > uHalfApertureRad ? -1.0 : uRadPerPx;
+#elif PROJECTION == 2
+  float lon = (p.x / size.x - 0.5) * 2.0 * PI;
+  float lat = (0.5 - p.y / size.y) * PI;
+  float c = cos(lat);
+  view = vec3(c * sin(lon), sin(lat), c * cos(lon));
+  return max(2.0 * PI * c / size.x, PI / size.y);
+#else
   float x = (p.x - 0.5 * size.x) / uFocalPx;
   float y = (0.5 * size.y - p.y) / uFocalPx;
   float inv = inversesqrt(x * x + y * y + 1.0);
   view = vec3(x * inv, y * inv, inv);
-  if (uProjectionKind == 3) view = uCubeFace * view;
+#if PROJECTION == 3
+  view = uCubeFace * view;
+#endif
   return inv / uFocalPx;
+#endif
 }
 
 // Aberration into the reference frame (Einstein 1905); returns the Doppler factor E_camera / E_reference.
@@ -100,44 +122,34 @@ vec2 rayNode(int i) {
 }
 
 // RayTable.lookup: fate, phi and dphi/dpsi at look angle psi (cubic Hermite in the segment's variable t).
+// Written without branches (one log, two node fetches), see WHEN above.
 void lookupRayTable(float psi, out float fate, out float phi, out float dPhiDPsi) {
+  // segment: how many upper bounds lie below psi (the bounds rise; the last segment's and unused ones are 1e30)
+  vec4 p4 = vec4(psi);
   int seg = 0;
-  for (int i = 0; i < MAX_SEGMENTS; i++) {
-    if (seg >= uSegmentCount - 1 || !(psi > uSegA[seg].y)) break;
-    seg++;
-  }
+  for (int j = 0; j < MAX_SEGMENTS / 4; j++) seg += int(dot(vec4(greaterThan(p4, uSegHi[j])), vec4(1.0)));
   vec4 a = uSegA[seg];
   vec4 b = uSegB[seg];
   float t0 = b.x;
   float dt = b.y;
   int offset = int(b.z + 0.5);
   int count = int(b.w + 0.5);
-  float t;
-  float dtDpsi;
-  if (a.x < 0.5) {
-    t = psi;
-    dtDpsi = 1.0;
-  } else if (a.x < 1.5) {
-    float d = max(psi - a.z, 1e-30);
-    t = log(d);
-    dtDpsi = 1.0 / d;
-  } else {
-    float d = max(a.z - psi, 1e-30);
-    t = log(d);
-    dtDpsi = -1.0 / d;
-  }
+  bool uniformMap = a.x < 0.5;
+  float side = a.x < 1.5 ? 1.0 : -1.0;
+  float d = max(side * (psi - a.z), 1e-30);
+  float t = uniformMap ? psi : log(d);
+  float dtDpsi = uniformMap ? 1.0 : side / d;
   float x = (t - t0) / dt;
+  int i = clamp(int(floor(x)), 0, count - 2);
+  vec2 n0 = rayNode(offset + i);
+  vec2 n1 = rayNode(offset + i + 1);
   float dPhiDt;
   if (x <= 0.0) {
     // beyond the closest node to a crossing phi is linear in ln(distance) (Bozza 2002)
-    vec2 n0 = rayNode(offset);
     phi = n0.x + n0.y * (t - t0);
     dPhiDt = n0.y;
   } else {
-    int i = min(int(floor(x)), count - 2);
     float s = x - float(i);
-    vec2 n0 = rayNode(offset + i);
-    vec2 n1 = rayNode(offset + i + 1);
     float m0 = n0.y * dt;
     float m1 = n1.y * dt;
     float s2 = s * s;
@@ -154,6 +166,7 @@ Trace traceFramePoint(vec2 p) {
   Trace tr;
   vec3 view;
   float pixelRad = pixelToView(p, view);
+#if PROJECTION == 1
   if (pixelRad < 0.0) {
     tr.dir = vec3(0.0);
     tr.fate = -1.0;
@@ -163,9 +176,12 @@ Trace traceFramePoint(vec2 p) {
     tr.dB = vec3(0.0);
     return tr;
   }
+#endif
   vec3 n = uViewToCamera * view;
   float doppler = 1.0;
-  if (uLensing) doppler = boostLook(n, uBoostVelocity);
+#if LENSING && BOOST
+  doppler = boostLook(n, uBoostVelocity);
+#endif
   float sinPsi = length(n.yz);
   vec2 tdir = vec2(1.0, 0.0);
   if (sinPsi > 1e-15) tdir = n.yz / sinPsi; else sinPsi = 0.0;
@@ -174,11 +190,10 @@ Trace traceFramePoint(vec2 p) {
   float phi = psi;
   float dPhiDPsi = 1.0;
   float g = 1.0;
-  if (uLensing) {
-    lookupRayTable(psi, fate, phi, dPhiDPsi);
-    float energy = uEps - n.x * uUr;
-    g = 1.0 / abs(energy);
-  }
+#if LENSING
+  lookupRayTable(psi, fate, phi, dPhiDPsi);
+  g = 1.0 / abs(uEps - n.x * uUr);
+#endif
   tr.g = g * doppler;
   float cp = cos(phi);
   float sp = sin(phi);

@@ -15,44 +15,98 @@ export function frameObjectKey(studioId: string, jobId: string, fileName: string
   return `studios/${studioId}/renders/${jobId}/${fileName}`;
 }
 
+/** A rendered frame waiting to be stored (the output of {@link renderJobFrame}). */
+export interface RenderedFrame {
+  renderJobId: string;
+  index: number;
+  studioId: string;
+  jobId: string;
+  format: RenderJob['settings']['format'];
+  sceneSlug: string;
+  spec: SceneRevision['spec'];
+  tau: number;
+  bytes: Buffer;
+  renderMs: number;
+}
+
+// Revisions are immutable, so a worker keeps the few it is rendering (and their scene's slug) in memory.
+const revisionCache = new Map<string, { spec: SceneRevision['spec']; sceneSlug: string }>();
+const REVISION_CACHE_SIZE = 16;
+
+async function revisionOf(job: RenderJob): Promise<{ spec: SceneRevision['spec']; sceneSlug: string } | null> {
+  const cached = revisionCache.get(job.revisionId);
+  if (cached) return cached;
+  const [revision, scene] = await Promise.all([SceneRevision.findByPk(job.revisionId), Scene.findByPk(job.sceneId, { attributes: ['slug'] })]);
+  if (!revision || !scene) return null;
+  const entry = { spec: revision.spec, sceneSlug: scene.slug };
+  if (revisionCache.size >= REVISION_CACHE_SIZE) revisionCache.delete(revisionCache.keys().next().value!);
+  revisionCache.set(job.revisionId, entry);
+  return entry;
+}
+
 /**
- * Renders one frame of a render job and records it. Safe to run twice for
- * the same frame (a crashed worker's job is retried): a frame already
- * recorded is skipped, an identical stored object is reused, and the
- * (job, index) row is unique.
+ * First stage of a frame: checks the job still wants it, then renders it.
+ * Returns the outcome when there is nothing to render (cancelled, finished,
+ * already stored, or gone).
  */
-export async function processFrame(renderJobId: string, index: number, context: { pool?: RenderPool; workerName: string }): Promise<FrameOutcome> {
+export async function renderJobFrame(renderJobId: string, index: number, context: { pool?: RenderPool }): Promise<RenderedFrame | Exclude<FrameOutcome, 'rendered'>> {
   const job = await RenderJob.findByPk(renderJobId);
   if (!job) return 'skipped-missing';
   if (job.status === 'cancelled' || job.status === 'done') return 'skipped-cancelled';
   if (await Frame.findOne({ where: { renderJobId, index }, attributes: ['id'] })) return 'already-stored';
-  await RenderJob.update({ status: 'running', startedAt: job.startedAt ?? new Date() }, { where: { id: renderJobId, status: 'queued' } });
+  if (job.status === 'queued') await RenderJob.update({ status: 'running', startedAt: job.startedAt ?? new Date() }, { where: { id: renderJobId, status: 'queued' } });
 
-  const [revision, scene] = await Promise.all([SceneRevision.findByPk(job.revisionId), Scene.findByPk(job.sceneId)]);
-  if (!revision || !scene) return 'skipped-missing';
-  const spec = revision.spec;
-  const tau = properTimeOfFrame(spec, index);
-  const request = renderRequestFor(spec, tau, job.settings);
+  const revision = await revisionOf(job);
+  if (!revision) return 'skipped-missing';
+  const tau = properTimeOfFrame(revision.spec, index);
+  const request = renderRequestFor(revision.spec, tau, job.settings);
   const started = performance.now();
   const image = await renderFrameToImage(request, { pool: context.pool, threads: context.pool ? undefined : 0 });
   const renderMs = Math.round(performance.now() - started);
+  // a render cancelled while this frame was drawn keeps no further frames
+  const after = await RenderJob.findByPk(renderJobId, { attributes: ['status'] });
+  if (!after || after.status === 'cancelled') return 'skipped-cancelled';
+  return {
+    renderJobId, index, studioId: job.studioId, jobId: job.id, format: job.settings.format, sceneSlug: revision.sceneSlug,
+    spec: revision.spec, tau, bytes: image.bytes, renderMs,
+  };
+}
 
-  const sha256 = createHash('sha256').update(image.bytes).digest('hex');
-  const fileName = frameFileName(scene.slug, index, job.settings.format);
-  const objectKey = frameObjectKey(job.studioId, job.id, fileName);
-  await putImmutable(objectKey, image.bytes, sha256, job.settings.format === 'jpeg' ? 'image/jpeg' : 'image/png');
+/**
+ * Second stage: stores the frame's bytes under its deterministic key (an
+ * identical object already there is reused), records the frame with its
+ * readouts (the (job, index) row is unique) and recounts progress.
+ * @returns whether this call saw the render complete
+ */
+export async function storeRenderedFrame(frame: RenderedFrame, workerName: string): Promise<{ completed: boolean }> {
+  const sha256 = createHash('sha256').update(frame.bytes).digest('hex');
+  const fileName = frameFileName(frame.sceneSlug, frame.index, frame.format);
+  const objectKey = frameObjectKey(frame.studioId, frame.jobId, fileName);
+  await putImmutable(objectKey, frame.bytes, sha256, frame.format === 'jpeg' ? 'image/jpeg' : 'image/png');
 
-  const physics = readoutAt(spec, sceneWorldline(spec), tau);
+  const physics = readoutAt(frame.spec, sceneWorldline(frame.spec), frame.tau);
   const readout: FrameReadout = {
     properTimeM: physics.tau, properTimeSeconds: physics.tauSeconds, radiusRs: physics.radiusRs, radiusKm: physics.radiusKm,
     speedRelativeToHover: physics.speedRelativeToHover, shiftMin: physics.shiftRange?.min ?? null, shiftMax: physics.shiftRange?.max ?? null,
-    countdownSeconds: physics.countdownSeconds, exposureEv: spec.exposure.ev,
+    countdownSeconds: physics.countdownSeconds, exposureEv: frame.spec.exposure.ev,
   };
   await Frame.bulkCreate(
-    [{ studioId: job.studioId, renderJobId, index, objectKey, bytes: image.bytes.length, sha256, readout, renderMs, worker: context.workerName }],
+    [{ studioId: frame.studioId, renderJobId: frame.renderJobId, index: frame.index, objectKey, bytes: frame.bytes.length, sha256, readout, renderMs: frame.renderMs, worker: workerName }],
     { ignoreDuplicates: true },
   );
-  await refreshProgress(renderJobId);
+  return { completed: await refreshProgress(frame.renderJobId) };
+}
+
+/**
+ * Renders one frame of a render job and records it (both stages in turn).
+ * Safe to run twice for the same frame (a crashed worker's job is retried):
+ * a frame already recorded is skipped, an identical stored object is reused,
+ * and the (job, index) row is unique.
+ */
+export async function processFrame(renderJobId: string, index: number, context: { pool?: RenderPool; workerName: string }): Promise<FrameOutcome> {
+  const rendered = await renderJobFrame(renderJobId, index, context);
+  if (typeof rendered === 'string') return rendered;
+  await storeRenderedFrame(rendered, context.workerName);
   return 'rendered';
 }
 

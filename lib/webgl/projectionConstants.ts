@@ -6,7 +6,7 @@
  */
 import type { Projection } from '../render/schema';
 
-/** Projection codes of the shader (uProjectionKind). */
+/** Projection codes of the shader (its PROJECTION switch, lib/webgl/shaderVariant.ts). */
 export const PROJECTION_CODES = { flat: 0, dome: 1, equirect: 2, cubeFace: 3 } as const;
 
 const DEG = Math.PI / 180;

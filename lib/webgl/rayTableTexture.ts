@@ -23,6 +23,9 @@ export const MAX_RAY_TABLE_SEGMENTS = 12;
 /** Texture width of the node texture, texels. */
 export const RAY_TABLE_TEXTURE_WIDTH = 1024;
 
+/** Upper bound written for segments without one (the last in use, and unused slots), radians. */
+export const SEGMENT_BOUND_NONE = 1e30;
+
 /** Sampling maps of a segment: uniform in psi, log of the distance from the left or right anchor. */
 export const MAP_UNIFORM = 0;
 export const MAP_LOG_FROM_LEFT = 1;
@@ -34,6 +37,11 @@ export interface PackedRayTable {
   eps: number;
   ur: number;
   segmentCount: number;
+  /**
+   * upper psi bound of each segment (rad), MAX_RAY_TABLE_SEGMENTS floats; SEGMENT_BOUND_NONE for the last
+   * segment in use and the unused ones, so the segment of psi is the number of bounds below it
+   */
+  segmentHi: Float32Array;
   /** per segment (map, psiHi rad, anchor rad, fate), MAX_RAY_TABLE_SEGMENTS * 4 floats */
   segmentA: Float32Array;
   /** per segment (t0, dt, node offset, node count), MAX_RAY_TABLE_SEGMENTS * 4 floats */
@@ -68,6 +76,7 @@ export function packRayTable(arrays: RayTableArrays, reuse?: PackedRayTable): Pa
           eps: 0,
           ur: 0,
           segmentCount: 0,
+          segmentHi: new Float32Array(MAX_RAY_TABLE_SEGMENTS),
           segmentA: new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4),
           segmentB: new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4),
           nodes: new Float32Array(height * RAY_TABLE_TEXTURE_WIDTH * 4),
@@ -77,6 +86,7 @@ export function packRayTable(arrays: RayTableArrays, reuse?: PackedRayTable): Pa
   out.eps = L[1];
   out.ur = L[2];
   out.segmentCount = count;
+  out.segmentHi.fill(SEGMENT_BOUND_NONE);
   out.segmentA.fill(0);
   out.segmentB.fill(0);
   for (let k = 0; k < count; k++) {
@@ -87,6 +97,7 @@ export function packRayTable(arrays: RayTableArrays, reuse?: PackedRayTable): Pa
     if ((map !== MAP_UNIFORM && map !== MAP_LOG_FROM_LEFT && map !== MAP_LOG_TO_RIGHT) || !(n >= 2) || offset + n > total) {
       throw new RangeError(`arrays.layout: segment ${k} is not a (map, lo, hi, anchor, t0, dt, offset, count, fate) record`);
     }
+    if (k < count - 1) out.segmentHi[k] = L[s + 2];
     out.segmentA.set([map, L[s + 2], L[s + 3], L[s + 8]], 4 * k);
     out.segmentB.set([L[s + 4], L[s + 5], offset, n], 4 * k);
   }
@@ -123,8 +134,9 @@ export function lookupPackedRayTable(table: PackedRayTable, psi: number, out: Pa
   const p = f32(psi);
   const A = table.segmentA;
   const B = table.segmentB;
+  // the shader counts the bounds below psi (they rise, so this is the first segment whose bound is not below)
   let seg = 0;
-  while (seg < table.segmentCount - 1 && p > A[4 * seg + 1]) seg++;
+  for (let k = 0; k < MAX_RAY_TABLE_SEGMENTS; k++) if (p > table.segmentHi[k]) seg++;
   const map = A[4 * seg];
   const anchor = A[4 * seg + 2];
   const t0 = B[4 * seg];

@@ -65,6 +65,7 @@ export class GpuSkyRenderer {
       uEps: { value: 1 },
       uUr: { value: 0 },
       uSegmentCount: { value: 1 },
+      uSegHi: { value: new Float32Array(MAX_RAY_TABLE_SEGMENTS) },
       uSegA: { value: segA },
       uSegB: { value: segB },
       uRayTable: { value: this.rayTable.texture },
@@ -169,6 +170,7 @@ export class GpuSkyRenderer {
       u.uEps.value = frame.table.eps;
       u.uUr.value = frame.table.ur;
       u.uSegmentCount.value = frame.table.segmentCount;
+      (u.uSegHi.value as Float32Array).set(frame.table.segmentHi);
       (u.uSegA.value as Float32Array).set(frame.table.segmentA);
       (u.uSegB.value as Float32Array).set(frame.table.segmentB);
       if (freshTable) {

@@ -1,0 +1,81 @@
+/**
+ * Compile-time switches of the sky shaders (shaders/sky.common.glsl and
+ * sky.lensed.frag): which projection, whether lensing and the camera boost
+ * apply, how many samples, which tone map, which grids and sky sources. Each
+ * combination is compiled as its own program, so a pixel never pays for code
+ * of a setting that is off. That matters most in software WebGL (SwiftShader),
+ * which runs both sides of every branch under a lane mask; a hardware GPU
+ * gains a smaller, simpler program. Settings that change every frame (camera,
+ * exposure, gains) stay uniforms, so moving the camera never recompiles.
+ */
+import type { GpuFrame } from './gpuFrame';
+
+/** #define name -> integer value. */
+export type ShaderDefines = Record<string, number>;
+
+/** What a frame draws besides its GpuFrame settings. */
+export interface LensedVariantInputs {
+  /** "where the light comes from" mode: the celestial grid is drawn */
+  sourcesMode: boolean;
+  /** star catalogue on and its textures bound */
+  stars: boolean;
+  /** diffuse map (Milky Way and far-star light) bound */
+  diffuse: boolean;
+  /** Milky Way on and present in the diffuse map */
+  milkyWay: boolean;
+  /** uniform sky brightness, mag-0 fluxes per steradian (0 or less: off) */
+  uniformBrightness: number;
+}
+
+/**
+ * Switches of sky.common.glsl (shared by both programs).
+ * @param frame per-frame GPU inputs (lib/webgl prepareGpuFrame)
+ * @returns PROJECTION (lib/webgl PROJECTION_CODES), LENSING and BOOST (0 or 1)
+ * @throws RangeError for a projection code outside 0..3
+ */
+export function directionsShaderDefines(frame: GpuFrame): ShaderDefines {
+  const kind = frame.projection.kind;
+  if (!Number.isInteger(kind) || kind < 0 || kind > 3) throw new RangeError(`frame.projection.kind must be a projection code 0..3; got ${kind}`);
+  const v = frame.boostVelocity;
+  const moving = v[0] !== 0 || v[1] !== 0 || v[2] !== 0;
+  return { PROJECTION: kind, LENSING: frame.lensing ? 1 : 0, BOOST: frame.lensing && moving ? 1 : 0 };
+}
+
+/**
+ * Switches of sky.lensed.frag.
+ * @param frame per-frame GPU inputs (lib/webgl prepareGpuFrame)
+ * @param inputs mode and sky sources in use
+ * @returns the common switches plus SAMPLES (1..4), TONE_MAP (lib/webgl TONE_MAP_CODES), HORIZON_GRID,
+ *   FAR_SIDE_GRID, CELESTIAL_GRID, STARS, DIFFUSE, MILKY_WAY, UNIFORM_SKY (0 or 1)
+ * @throws RangeError for supersampling outside 1..4 or a tone-map code outside 0..2
+ */
+export function lensedShaderDefines(frame: GpuFrame, inputs: LensedVariantInputs): ShaderDefines {
+  if (!Number.isInteger(frame.supersampling) || frame.supersampling < 1 || frame.supersampling > 4) {
+    throw new RangeError(`frame.supersampling must be an integer 1..4; got ${frame.supersampling}`);
+  }
+  if (!Number.isInteger(frame.toneMap) || frame.toneMap < 0 || frame.toneMap > 2) throw new RangeError(`frame.toneMap must be a tone-map code 0..2; got ${frame.toneMap}`);
+  return {
+    ...directionsShaderDefines(frame),
+    SAMPLES: frame.supersampling,
+    TONE_MAP: frame.toneMap,
+    HORIZON_GRID: frame.horizonGrid.enabled ? 1 : 0,
+    FAR_SIDE_GRID: frame.farSideGrid.enabled ? 1 : 0,
+    CELESTIAL_GRID: inputs.sourcesMode ? 1 : 0,
+    STARS: inputs.stars ? 1 : 0,
+    DIFFUSE: inputs.diffuse ? 1 : 0,
+    MILKY_WAY: inputs.diffuse && inputs.milkyWay ? 1 : 0,
+    UNIFORM_SKY: inputs.uniformBrightness > 0 ? 1 : 0,
+  };
+}
+
+/**
+ * A stable key of a set of switches (for a cache of compiled programs).
+ * @param defines switches
+ * @returns "NAME=value" pairs sorted by name, joined by ";"
+ */
+export function shaderVariantKey(defines: ShaderDefines): string {
+  return Object.keys(defines)
+    .sort()
+    .map((k) => `${k}=${defines[k]}`)
+    .join(';');
+}
