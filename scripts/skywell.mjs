@@ -203,6 +203,14 @@ async function bench() {
   const files = (fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith('.bench.ts')).sort() : [])
     .filter((f) => !only.length || only.some((word) => f.includes(word)));
   if (!files.length) fail(`no benchmarks found under tests/bench/*.bench.ts${only.length ? ` matching ${only.join(', ')}` : ''}`);
+  // Benches named *.app.bench.ts drive the served app in Chromium: build it if needed and serve it.
+  if (files.some((f) => f.endsWith('.app.bench.ts'))) {
+    ensureChromium();
+    buildIfNeeded(childEnv);
+    spawnChild(['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(local.appPort)], childEnv, 'next start (bench)');
+    await waitForPort(local.appPort, 'the app (bench)', 120_000);
+    childEnv.SKYWELL_BASE_URL = `http://localhost:${local.appPort}`;
+  }
   // Every bench runs even if one fails; the command fails at the end if any did.
   const failed = [];
   for (const file of files) {

@@ -7,7 +7,7 @@ import { useEffect, useRef, useState } from 'react';
 import type { FrameRequest } from '@/lib/render/schema';
 import type { SkyViewMode } from './gpu/gpu-sky-renderer';
 import { CpuSkyClient, type CpuFrame } from './cpu/cpu-client';
-import { publishDebugHandle, toBase64 } from './debug-handle';
+import { countFrameShown, publishDebugHandle, toBase64 } from './debug-handle';
 
 interface CpuSkyProps {
   request: FrameRequest;
@@ -51,6 +51,7 @@ export function CpuSky({ request, mode, assetBase }: CpuSkyProps) {
           canvas.width = frame.width;
           canvas.height = frame.height;
           ctx.putImageData(new ImageData(new Uint8ClampedArray(frame.rgba), frame.width, frame.height), 0, 0);
+          countFrameShown();
         }
       },
       (e: unknown) => {

@@ -18,7 +18,14 @@ export interface SkyViewDebugHandle {
 declare global {
   interface Window {
     __skywellSkyView?: SkyViewDebugHandle;
+    /** frames put on screen by any sky view since the page loaded (read by the editor preview bench) */
+    __skywellFramesShown?: number;
   }
+}
+
+/** Count one frame put on screen (WebGL draw or CPU frame painted). */
+export function countFrameShown(): void {
+  window.__skywellFramesShown = (window.__skywellFramesShown ?? 0) + 1;
 }
 
 /** Base64 of a typed array's bytes. */

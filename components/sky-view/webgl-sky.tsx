@@ -10,7 +10,7 @@ import type { FrameRequest } from '@/lib/render/schema';
 import { GpuSkyRenderer, type SkyViewMode } from './gpu/gpu-sky-renderer';
 import { buildGpuSkyData, type GpuSkyData } from './gpu/sky-data';
 import { loadSkyAssets } from './sky-assets';
-import { publishDebugHandle, toBase64 } from './debug-handle';
+import { countFrameShown, publishDebugHandle, toBase64 } from './debug-handle';
 
 interface WebGlSkyProps {
   request: FrameRequest;
@@ -45,6 +45,7 @@ function SkyPass({ request, mode, sky, onFrame }: { request: FrameRequest; mode:
   useFrame(() => {
     const tableBuildMs = renderer.prepare(request, mode);
     renderer.draw();
+    countFrameShown();
     onFrame?.({ tableBuildMs });
   }, 1);
   return null;

@@ -4,7 +4,7 @@ import type { SceneReadout } from '@/lib/scenes/readout';
 import { DOME_COMFORT_LIMIT_DEG_PER_S } from '@/lib/scenes/look';
 import { sampleWorldline } from '@/lib/relativity';
 import { Alert } from '@/components/ui/alert';
-import { useEditor } from '../editor/editor-context';
+import { useEditor, usePlayhead } from '../editor/editor-context';
 import { useTimeline } from '../analysis/use-timeline';
 import { OrbitBandChart } from './orbit-band-chart';
 import { PotentialChart } from './potential-chart';
@@ -12,7 +12,8 @@ import { TimeCharts } from './time-charts';
 
 /** The charts beside the panels: the whole descent as pictures; click any chart to scrub there. */
 export function ChartsColumn({ screenTime, readout }: { screenTime: number; readout: SceneReadout | null }) {
-  const { live, tau, setScreenTime } = useEditor();
+  const { live } = useEditor();
+  const { tau, setScreenTime } = usePlayhead();
   const timeline = useTimeline(live?.spec ?? null);
   const points = timeline.points;
   const sample = live ? sampleWorldline(live.worldline, Math.min(tau, live.worldline.duration)) : null;

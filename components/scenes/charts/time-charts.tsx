@@ -1,19 +1,26 @@
 'use client';
 
-import type { ReactNode } from 'react';
+import { memo, type CSSProperties, type ReactNode } from 'react';
 import { Area, CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { ILLUSTRATIVE_DISRUPTION_THRESHOLD_G } from '@/lib/scenes/readout';
 import { DOME_COMFORT_LIMIT_DEG_PER_S } from '@/lib/scenes/look';
 import type { TimelinePoint } from '../analysis/timeline';
 import { formatDuration } from '../editor/format';
-import { AXIS, CURSOR, GRID, TEAL, VIOLET, decadeTicks, logTick, positive } from './chart-theme';
+import { AXIS, GRID, TEAL, VIOLET, decadeTicks, logTick, positive } from './chart-theme';
 import { pick } from './orbit-band-chart';
+import { ChartCursor, linearFraction } from './chart-cursor';
+
+/** Plot-area insets of the small charts: margins (top 6, right 10), y-axis 48 px, x-axis 30 px. */
+const SMALL_CHART_INSETS = { left: 48, right: 10, top: 6, bottom: 30 };
 
 function SmallChart({ title, testId, children, note }: { title: string; testId: string; children: ReactNode; note?: ReactNode }) {
   return (
     <figure className="space-y-1" data-testid={testId}>
       <figcaption className="text-xs font-medium text-slate-300">{title}</figcaption>
-      <div className="h-36">{children}</div>
+      <div className="relative h-36">
+        {children}
+        <ChartCursor insets={SMALL_CHART_INSETS} x="inherit" />
+      </div>
       {note ? <p className="text-[11px] text-slate-500">{note}</p> : null}
     </figure>
   );
@@ -31,6 +38,17 @@ const tooltip = { contentStyle: { background: '#0a0e17', border: '1px solid #3b4
 export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoint[]; screenTime: number; onPick: (screenTime: number) => void }) {
   const start = points[0]?.screenTime ?? 0;
   const end = points[points.length - 1]?.screenTime ?? 1;
+  // the cursor moves through a CSS variable; the charts re-render only when the path changes
+  return (
+    <div style={{ '--chart-cursor-x': linearFraction(screenTime, start, end) } as CSSProperties}>
+      <TimeChartPlots points={points} onPick={onPick} />
+    </div>
+  );
+}
+
+const TimeChartPlots = memo(function TimeChartPlots({ points, onPick }: { points: TimelinePoint[]; onPick: (screenTime: number) => void }) {
+  const start = points[0]?.screenTime ?? 0;
+  const end = points[points.length - 1]?.screenTime ?? 1;
   const x = { dataKey: 'screenTime', type: 'number' as const, domain: [start, end], ...AXIS, tickFormatter: (v: number) => `${Math.round(v)} s` };
   const data = points.map((p) => ({
     screenTime: p.screenTime,
@@ -44,7 +62,6 @@ export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoi
   const stretchDomain = logDomain([...data.map((d) => d.stretch), ILLUSTRATIVE_DISRUPTION_THRESHOLD_G]);
   const shiftDomain = logDomain(points.flatMap((p) => [p.shiftMin, p.shiftMax]), 1.5);
   const turnMax = Math.max(DOME_COMFORT_LIMIT_DEG_PER_S * 1.3, ...points.map((p) => p.lookTurnDegPerS * 1.1));
-  const cursor = <ReferenceLine x={screenTime} stroke={CURSOR} strokeWidth={1.5} ifOverflow="hidden" />;
   const click = (state: unknown) => pick(state, points, onPick);
   return (
     <div className="grid gap-4 md:grid-cols-2">
@@ -56,7 +73,6 @@ export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoi
             <YAxis scale="log" domain={countdownDomain} ticks={decadeTicks(...countdownDomain)} allowDataOverflow {...AXIS} width={48} tickFormatter={(v: number) => formatDuration(v)} />
             <Tooltip {...tooltip} formatter={(v) => [formatDuration(Number(v)), 'left']} />
             <Line dataKey="countdown" stroke={TEAL} strokeWidth={2} dot={false} isAnimationActive={false} connectNulls={false} />
-            {cursor}
           </ComposedChart>
         </ResponsiveContainer>
       </SmallChart>
@@ -69,7 +85,6 @@ export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoi
             <Tooltip {...tooltip} formatter={(v) => [`${Number(v).toPrecision(3)} g`, 'stretch']} />
             <ReferenceLine y={ILLUSTRATIVE_DISRUPTION_THRESHOLD_G} stroke={VIOLET} strokeDasharray="5 4" ifOverflow="hidden" />
             <Line dataKey="stretch" stroke={TEAL} strokeWidth={2} dot={false} isAnimationActive={false} />
-            {cursor}
           </ComposedChart>
         </ResponsiveContainer>
       </SmallChart>
@@ -82,7 +97,6 @@ export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoi
             <Tooltip {...tooltip} formatter={(v) => [Array.isArray(v) ? `${Number(v[0]).toPrecision(3)} – ${Number(v[1]).toPrecision(3)}` : String(v), 'shift g']} />
             <ReferenceLine y={1} stroke="#5b6880" strokeDasharray="3 3" />
             <Area dataKey="shift" stroke={VIOLET} fill={VIOLET} fillOpacity={0.35} isAnimationActive={false} connectNulls={false} />
-            {cursor}
           </ComposedChart>
         </ResponsiveContainer>
       </SmallChart>
@@ -95,10 +109,9 @@ export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoi
             <Tooltip {...tooltip} formatter={(v) => [`${Number(v).toFixed(1)}°/s`, 'turn rate']} />
             <ReferenceLine y={DOME_COMFORT_LIMIT_DEG_PER_S} stroke={VIOLET} strokeDasharray="5 4" />
             <Line dataKey="turn" stroke={TEAL} strokeWidth={2} dot={false} isAnimationActive={false} />
-            {cursor}
           </ComposedChart>
         </ResponsiveContainer>
       </SmallChart>
     </div>
   );
-}
+});

@@ -3,7 +3,7 @@
 import { createContext, useContext } from 'react';
 import type { LiveScene, IssueMap } from './use-live-scene';
 
-/** What every panel of the editor reads: units for the scene's mass, live issues and the scrub position. */
+/** What every panel of the editor reads: units for the scene's mass and live issues. Changes only on edits. */
 export interface EditorContextValue {
   canEdit: boolean;
   /** seconds per M and metres per M for the mass being typed (null while the mass is not a valid number) */
@@ -13,8 +13,17 @@ export interface EditorContextValue {
   time: { unit: 's' | 'ms' | 'µs'; fromM: (m: number) => number; toM: (v: number) => number } | null;
   issues: IssueMap;
   live: LiveScene | null;
+}
+
+/**
+ * The scrub position, in its own context so the panels and the form do not
+ * re-render on every frame of a scrub or playback. Consumers get a deferred
+ * copy: the preview and scrubber stay smooth, charts and markers follow.
+ */
+export interface PlayheadValue {
   /** proper time at the scrubber, M */
   tau: number;
+  /** screen time at the scrubber, s */
   screenTime: number;
   setScreenTime: (seconds: number) => void;
 }
@@ -24,6 +33,14 @@ export const EditorContext = createContext<EditorContextValue | null>(null);
 export function useEditor(): EditorContextValue {
   const value = useContext(EditorContext);
   if (!value) throw new Error('useEditor must be used inside the scene editor');
+  return value;
+}
+
+export const PlayheadContext = createContext<PlayheadValue | null>(null);
+
+export function usePlayhead(): PlayheadValue {
+  const value = useContext(PlayheadContext);
+  if (!value) throw new Error('usePlayhead must be used inside the scene editor');
   return value;
 }
 

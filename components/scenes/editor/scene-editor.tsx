@@ -1,24 +1,19 @@
 'use client';
 
 import Link from 'next/link';
-import { useCallback, useDeferredValue, useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { FormProvider, useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { massScale } from '@/lib/relativity';
 import { sceneSpecSchema, type SceneSpec, type SceneSpecInput } from '@/lib/scenes/schema';
-import { readoutAt } from '@/lib/scenes/readout';
-import { properTimeAtScreen } from '@/lib/scenes/frame-request';
 import { Alert } from '@/components/ui/alert';
 import { EditorContext, timeUnitFor, type EditorContextValue } from './editor-context';
 import { buildLiveScene, useLiveScene } from './use-live-scene';
 import { draftKey, useDraft } from './use-draft';
 import { EditorTabs } from './editor-tabs';
 import { SaveBar, type SaveOutcome } from './save-bar';
-import { ReadoutPanel } from '../readouts/readout-panel';
-import { Scrubber } from '../timeline/scrubber';
 import { PacingEditor } from '../timeline/pacing-editor';
-import { ChartsColumn } from '../charts/charts-column';
-import { ScenePreview } from '../preview/scene-preview';
+import { EditorWorkspace } from './editor-workspace';
 
 export interface SceneEditorProps {
   studio: string;
@@ -49,30 +44,16 @@ export function SceneEditor(props: SceneEditorProps) {
   const draft = useDraft<SceneSpecInput>(draftKey(userId, scene.id, loaded.number), values, dirty, canEdit);
   const [outcome, setOutcome] = useState<SaveOutcome | null>(null);
 
-  // Scrub position in screen time; the readouts follow a deferred copy so dragging stays smooth.
-  const [screenTime, setScreenTimeRaw] = useState(0);
-  const [scrubbing, setScrubbing] = useState(false);
-  const timing = live?.timing;
-  const setScreenTime = useCallback((s: number) => setScreenTimeRaw(Number.isFinite(s) ? s : 0), []);
-  const clampedScreen = timing ? Math.min(Math.max(screenTime, timing.screenStartS), timing.screenEndS) : 0;
-  const tau = live ? properTimeAtScreen(live.timing, live.worldline, clampedScreen) : 0;
-  const deferredTau = useDeferredValue(tau);
-  const readout = useMemo(() => (live ? readoutAt(live.spec, live.worldline, deferredTau) : null), [live, deferredTau]);
-
   const mass = Number(values.massSolar);
-  const scale = Number.isFinite(mass) && mass > 0 && mass <= 1e11 ? massScale(mass) : null;
-
-  const context: EditorContextValue = {
-    canEdit,
-    secondsPerM: scale?.secondsPerM ?? null,
-    metresPerM: scale?.metresPerM ?? null,
-    time: timeUnitFor(scale?.secondsPerM ?? null),
-    issues,
-    live,
-    tau,
-    screenTime: clampedScreen,
-    setScreenTime,
-  };
+  const secondsPerM = Number.isFinite(mass) && mass > 0 && mass <= 1e11 ? massScale(mass).secondsPerM : null;
+  const metresPerM = Number.isFinite(mass) && mass > 0 && mass <= 1e11 ? massScale(mass).metresPerM : null;
+  // stable between edits, so scrubbing (EditorWorkspace's own state) re-renders none of the panels
+  const context: EditorContextValue = useMemo(
+    () => ({ canEdit, secondsPerM, metresPerM, time: timeUnitFor(secondsPerM), issues, live }),
+    [canEdit, secondsPerM, metresPerM, issues, live],
+  );
+  const pacing = useMemo(() => <PacingEditor />, []);
+  const tabs = useMemo(() => <EditorTabs />, []);
 
   const restoreDraft = () => {
     if (!draft.offered) return;
@@ -128,24 +109,7 @@ export function SceneEditor(props: SceneEditorProps) {
             </div>
           ) : null}
 
-          <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_18rem]">
-            <section className="space-y-3 rounded-lg border border-ink-700 bg-ink-800/80 p-4" aria-label="Preview">
-              <ScenePreview live={live} tau={tau} scrubbing={scrubbing} stale={valid === false} />
-              {timing ? (
-                <Scrubber start={timing.screenStartS} end={timing.screenEndS} value={clampedScreen} tauSeconds={scale ? tau * scale.secondsPerM : null} onChange={setScreenTime} onScrubbing={setScrubbing} />
-              ) : null}
-              <PacingEditor />
-            </section>
-            <section className="rounded-lg border border-ink-700 bg-ink-800/80 p-4" aria-label="Readouts">
-              <h2 className="mb-2 text-sm font-semibold text-slate-200">Readouts</h2>
-              <ReadoutPanel readout={readout} stale={valid === false || deferredTau !== tau} />
-            </section>
-          </div>
-
-          <div className="grid gap-4 xl:grid-cols-2">
-            <EditorTabs />
-            <ChartsColumn screenTime={clampedScreen} readout={readout} />
-          </div>
+          <EditorWorkspace live={live} valid={valid} secondsPerM={secondsPerM} pacing={pacing} tabs={tabs} />
         </div>
       </EditorContext.Provider>
     </FormProvider>

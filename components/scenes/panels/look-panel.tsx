@@ -3,7 +3,7 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import type { SceneSpecInput } from '@/lib/scenes/schema';
 import { lookAt, sortKeyframes } from '@/lib/scenes/look';
-import { useEditor } from '../editor/editor-context';
+import { useEditor, usePlayhead } from '../editor/editor-context';
 import { Group, NumberField, SelectField } from '../editor/fields';
 import { FieldRow, NumberInput } from '../editor/number-input';
 import { formatDuration } from '../editor/format';
@@ -43,7 +43,8 @@ const PROJECTIONS = [
 
 /** Look panel: keyframes for look and up direction, field of view and roll; projection and dome tilt. */
 export function LookPanel() {
-  const { canEdit, tau, secondsPerM, time } = useEditor();
+  const { canEdit, secondsPerM, time } = useEditor();
+  const { tau } = usePlayhead();
   const { control, setValue } = useFormContext<SceneSpecInput>();
   const keyframes = useFieldArray({ control, name: 'look.keyframes' });
   const values = useWatch({ control, name: 'look.keyframes' });

@@ -5,7 +5,7 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import type { SceneSpecInput } from '@/lib/scenes/schema';
 import { FRAME_RATES } from '@/lib/scenes/schema';
 import { buildPacingCurve, screenTimeAt, slowDownNearEnd, type PacingPoint } from '@/lib/scenes/pacing';
-import { useEditor } from '../editor/editor-context';
+import { useEditor, usePlayhead } from '../editor/editor-context';
 import { formatDuration, formatNumber } from '../editor/format';
 
 const W = 640;
@@ -18,7 +18,8 @@ const PAD = { left: 46, right: 12, top: 10, bottom: 26 };
  * to add one, Delete to remove it).
  */
 export function PacingEditor() {
-  const { canEdit, live, tau, secondsPerM, issues } = useEditor();
+  const { canEdit, live, secondsPerM, issues } = useEditor();
+  const { tau } = usePlayhead();
   const { control, setValue } = useFormContext<SceneSpecInput>();
   const points = (useWatch({ control, name: 'pacing.points' }) ?? []) as PacingPoint[];
   const frameRate = useWatch({ control, name: 'pacing.frameRate' }) as number;

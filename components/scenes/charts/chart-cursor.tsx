@@ -1,0 +1,45 @@
+'use client';
+
+import { CURSOR } from './chart-theme';
+
+/** Insets of a chart's plot area inside its box, px: margins plus the axis band (recharts' XAxis is 30 px tall). */
+export interface PlotInsets {
+  left: number;
+  right: number;
+  top: number;
+  bottom: number;
+}
+
+/** Position of v between lo and hi on a linear axis, 0..1 (clamped). */
+export function linearFraction(v: number, lo: number, hi: number): number {
+  return hi > lo && Number.isFinite(v) ? Math.min(Math.max((v - lo) / (hi - lo), 0), 1) : 0;
+}
+
+/** Position of v between lo and hi on a log axis, 0..1 (clamped; v <= 0 sits at the bottom). */
+export function logFraction(v: number, lo: number, hi: number): number {
+  return v > 0 && hi > lo && lo > 0 ? linearFraction(Math.log(v), Math.log(lo), Math.log(hi)) : 0;
+}
+
+/**
+ * The current moment drawn over a chart as an overlay: a vertical line at
+ * fraction x of the plot's width and, when y is given, a dot at fraction y of
+ * its height (from the bottom). The chart underneath does not re-render when
+ * the moment moves, which keeps scrubbing and playback smooth.
+ */
+export function ChartCursor({ insets, x, y, line = true }: { insets: PlotInsets; x: number | 'inherit'; y?: number | null; line?: boolean }) {
+  // 'inherit': the fraction comes from the --chart-cursor-x CSS variable of an ancestor, so a memoized chart
+  // group can show a moving cursor without re-rendering
+  const fraction = x === 'inherit' ? 'var(--chart-cursor-x, 0)' : String(x);
+  const left = `calc(${insets.left}px + (100% - ${insets.left + insets.right}px) * ${fraction})`;
+  return (
+    <div className="pointer-events-none absolute inset-0" aria-hidden="true" data-testid="chart-cursor">
+      {line ? <div className="absolute w-[1.5px]" style={{ left, top: insets.top, bottom: insets.bottom, background: CURSOR }} /> : null}
+      {y !== undefined && y !== null ? (
+        <div
+          className="absolute h-2.5 w-2.5 -translate-x-1/2 translate-y-1/2 rounded-full border border-[#05070c]"
+          style={{ left, bottom: `calc(${insets.bottom}px + (100% - ${insets.top + insets.bottom}px) * ${y})`, background: CURSOR }}
+        />
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,139 @@
+/**
+ * Scene editor preview bench (issue 5): frames per second the live preview puts on
+ * screen while a demo shot plays, in Debian Chromium with SwiftShader (software
+ * WebGL) against the app `npm run bench` serves (SKYWELL_BASE_URL).
+ *
+ * Play advances the scrubber every animation frame, so each frame asks the preview
+ * for a new camera state: the whole path a producer's scrub takes (React state,
+ * lib/scenes frame request, ray table, draw). Frames are counted by the sky view
+ * itself (window.__skywellFramesShown). Measured on the WebGL path (the default)
+ * and on the CPU fallback in a Web Worker (WebGL disabled by a launch flag), where
+ * the preview draws half-size light frames while the shot moves.
+ * Target: at least 20 frames per second at 640x360. Reported, not asserted.
+ */
+import { chromium, type Browser, type Page } from 'playwright-core';
+import type {} from '../../components/sky-view/debug-handle'; // window.__skywellFramesShown
+
+const BASE_URL = process.env.SKYWELL_BASE_URL;
+const STUDIO = 'saltmarsh-dome';
+const PASSWORD = process.env.SKYWELL_DEMO_PASSWORD ?? 'skywell-demo-2026';
+const WINDOW_MS = 6000;
+/** SKYWELL_BENCH_PROFILE=1 also prints where the page's main thread spent the played window. */
+const PROFILE = process.env.SKYWELL_BENCH_PROFILE === '1';
+
+interface CpuProfile {
+  nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; children?: number[] }[];
+  samples: number[];
+  timeDeltas: number[];
+}
+
+/** Self time per function (top 20) and per script of a V8 CPU profile. */
+function printProfile(label: string, profile: CpuProfile): void {
+  const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+  const self = new Map<string, number>();
+  const perUrl = new Map<string, number>();
+  profile.samples.forEach((id, i) => {
+    const frame = byId.get(id)!.callFrame;
+    const name = `${frame.functionName || '(anonymous)'} ${frame.url.split('/').pop()}:${frame.lineNumber}`;
+    const dt = (profile.timeDeltas[i] ?? 0) / 1000;
+    self.set(name, (self.get(name) ?? 0) + dt);
+    const url = frame.url.split('/').pop() || frame.functionName;
+    perUrl.set(url, (perUrl.get(url) ?? 0) + dt);
+  });
+  const top = (m: Map<string, number>, n: number) => [...m].sort((a, b) => b[1] - a[1]).slice(0, n).map(([k, v]) => `  ${v.toFixed(0).padStart(6)} ms  ${k}`).join('\n');
+  console.log(`profile of "${label}" (main thread self time):\n${top(self, 20)}\nper script:\n${top(perUrl, 10)}`);
+}
+const ARGS = [
+  '--no-sandbox', '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--no-first-run', '--disable-quic', '--use-angle=swiftshader', '--enable-unsafe-swiftshader',
+];
+
+async function signIn(page: Page): Promise<void> {
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.locator('[data-testid="sign-in-form"][data-hydrated="true"]').waitFor({ timeout: 120_000 });
+  await page.getByLabel('E-mail').fill(`producer@${STUDIO}.test`);
+  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByLabel('Password').press('Enter');
+  await page.waitForURL(new RegExp(`/studios/${STUDIO}$`), { timeout: 120_000 });
+}
+
+interface PlayResult {
+  fps: number;
+  size: string;
+  path: string;
+  seconds: number;
+}
+
+/** Opens a demo scene, waits for its first full frame, plays the shot and counts the frames shown. */
+async function playScene(page: Page, sceneName: string, expectedPath: 'webgl' | 'cpu'): Promise<PlayResult> {
+  await page.goto(`${BASE_URL}/studios/${STUDIO}/shows`);
+  await page.getByRole('link', { name: 'The Long Fall' }).first().click();
+  await page.getByRole('link', { name: sceneName, exact: true }).click();
+  await page.getByTestId('scene-title').filter({ hasText: sceneName }).waitFor({ timeout: 180_000 });
+  const preview = page.getByTestId('preview');
+  await page.waitForFunction(
+    (path) => {
+      const el = document.querySelector('[data-testid="preview"]');
+      return el?.getAttribute('data-path') === path && el.getAttribute('data-detail') === 'full' && (window.__skywellFramesShown ?? 0) > 0;
+    },
+    expectedPath,
+    { timeout: 180_000 },
+  );
+  const size = `${JSON.parse((await preview.getAttribute('data-request')) ?? '{}').width}x${JSON.parse((await preview.getAttribute('data-request')) ?? '{}').height}`;
+  // from the start of the shot, and let the page settle
+  await page.getByTestId('scrubber').focus();
+  await page.keyboard.press('Home');
+  await page.waitForTimeout(1500);
+  const before = await page.evaluate(() => ({ frames: window.__skywellFramesShown ?? 0, at: performance.now() }));
+  const profiler = PROFILE ? await page.context().newCDPSession(page) : null;
+  if (profiler) {
+    await profiler.send('Profiler.enable');
+    await profiler.send('Profiler.start');
+  }
+  await page.getByTestId('play').click();
+  // until the window closes or the shot ends (Play shows again)
+  const deadline = Date.now() + WINDOW_MS;
+  while (Date.now() < deadline && (await page.getByTestId('play').getAttribute('aria-label')) === 'Pause') await page.waitForTimeout(200);
+  const after = await page.evaluate(() => ({ frames: window.__skywellFramesShown ?? 0, at: performance.now() }));
+  if ((await page.getByTestId('play').getAttribute('aria-label')) === 'Pause') await page.getByTestId('play').click();
+  if (profiler) printProfile(sceneName, (await profiler.send('Profiler.stop')).profile);
+  const seconds = (after.at - before.at) / 1000;
+  const path = (await preview.getAttribute('data-path')) ?? '?';
+  return { fps: (after.frames - before.frames) / seconds, size, path, seconds };
+}
+
+async function measure(browser: Browser, scenes: string[], path: 'webgl' | 'cpu'): Promise<PlayResult[]> {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+  const page = await context.newPage();
+  page.on('pageerror', (e) => console.error(`page error: ${e.message}`));
+  await signIn(page);
+  const results: PlayResult[] = [];
+  for (const scene of scenes) results.push(await playScene(page, scene, path));
+  await context.close();
+  return results;
+}
+
+async function main(): Promise<void> {
+  if (!BASE_URL) throw new Error('SKYWELL_BASE_URL is not set: run through `npm run bench`');
+  const scenes = ['Drop through the horizon', 'Approach from 40 r_s'];
+  console.log('Skywell scene editor preview bench: Debian Chromium, SwiftShader (software WebGL); frames shown while the shot plays');
+  const gpu = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ARGS });
+  try {
+    const results = await measure(gpu, scenes, 'webgl');
+    results.forEach((r, i) => console.log(`preview, ${r.path} path, "${scenes[i]}" ${r.size}: ${r.fps.toFixed(1)} frames/s over ${r.seconds.toFixed(1)} s (target >= 20 at 640x360)`));
+  } finally {
+    await gpu.close();
+  }
+  const cpu = await chromium.launch({ executablePath: '/usr/bin/chromium', args: [...ARGS, '--disable-webgl', '--disable-3d-apis'] });
+  try {
+    const [r] = await measure(cpu, scenes.slice(0, 1), 'cpu');
+    console.log(`preview, ${r.path} fallback (WebGL disabled), "${scenes[0]}" full size ${r.size}, half-size frames while playing: ${r.fps.toFixed(1)} frames/s over ${r.seconds.toFixed(1)} s`);
+  } finally {
+    await cpu.close();
+  }
+}
+
+main().catch((error: unknown) => {
+  console.error(`editor preview bench failed: ${error instanceof Error ? error.message : String(error)}`);
+  process.exit(1);
+});
