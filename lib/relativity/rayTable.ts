@@ -25,6 +25,17 @@ const MAP_LOG_TO_RIGHT = 2;
 const LOG_NEAREST_RAD = 1e-9;
 /** Node spacing in t = log(distance) (dimensionless). */
 const LOG_STEP = 0.03;
+/**
+ * Closest distance to a break the lookup resolves, radians: an exact hit on a crossing (where phi
+ * diverges) is read at this distance, so the result stays finite.
+ */
+const NEAREST_DISTANCE_RAD = 1e-300;
+/**
+ * |dphi/dt| at a log segment's nearest node (1e-9 rad from its break) below which the break is smooth:
+ * there dphi/dt = d * dphi/dpsi is ~1e-9 times a finite derivative, whereas at a crossing it tends to a
+ * constant of order one (Bozza 2002, strong-deflection coefficient).
+ */
+const SMOOTH_ANCHOR_SLOPE = 1e-5;
 /** Node count of a uniformly sampled half (at least). */
 const UNIFORM_NODES = 256;
 /** Header: r, eps, ur, segment count, psiEdge, psiEnergyZero. */
@@ -120,6 +131,28 @@ interface SegmentPlan {
   lo: number;
   hi: number;
   anchor: number;
+  /** the anchor is a smooth break (k^r = 0 or the horizon image), graded logarithmically only for detail */
+  smooth: boolean;
+}
+
+/** Distance from a smooth break within which phi is treated as linear in the distance, radians. */
+const SMOOTH_LINEAR_RAD = 1e-5;
+
+/**
+ * Nodes of a log segment next to a smooth break: within 1e-5 rad phi is linear in the distance d = e^t
+ * (to ~phi'' d^2 = 1e-10 rad), so the nodes there take the secant line from the first node to the one
+ * nearest 1e-5 rad, and dphi/dt = d dphi/dd. The traced phi carries ~4e-9 rad of roundoff beside k^r = 0,
+ * which differences over the first nodes' 3e-11 rad steps would blow up into wrong slopes.
+ */
+function fillSmoothSlopes(values: Float64Array, slopes: Float64Array, offset: number, n: number, t0: number, dt: number): void {
+  const m = Math.min(n - 1, Math.max(1, Math.round((Math.log(SMOOTH_LINEAR_RAD) - t0) / dt)));
+  const d0 = Math.exp(t0);
+  const perRad = (values[offset + m] - values[offset]) / (Math.exp(t0 + m * dt) - d0);
+  for (let i = 0; i < m; i++) {
+    const d = Math.exp(t0 + i * dt);
+    values[offset + i] = values[offset] + (d - d0) * perRad;
+    slopes[offset + i] = d * perRad;
+  }
 }
 
 /**
@@ -169,29 +202,29 @@ export class RayTable {
     // Breakpoints: singular crossings, and the horizon image (E = 0) inside.
     // The horizon image is not singular, but phi changes on a scale that shrinks
     // deep inside the hole, so it is graded logarithmically too.
-    const breaks: { psi: number; singular: boolean }[] = crossings.map((psi) => ({ psi, singular: true }));
+    const breaks: { psi: number; singular: boolean; smooth?: boolean }[] = crossings.map((psi) => ({ psi, singular: true }));
     if (r <= 2) {
       // E = 0 at cos psi = eps/ur.
       const c = eps / ur;
-      if (c > -1 && c < 1) breaks.push({ psi: Math.acos(c), singular: true });
+      if (c > -1 && c < 1) breaks.push({ psi: Math.acos(c), singular: true, smooth: true });
     } else {
       // k^r = 0 (the camera sits at the ray's turning point), cos psi = ur/eps: smooth, but with a
       // structure as fine as the gap between the turning point and the photon sphere near r = 3.
       const turning = Math.acos(Math.max(-1, Math.min(1, ur / eps)));
       if (turning > 0 && turning < Math.PI && !breaks.some((b) => Math.abs(b.psi - turning) < 1e-12)) {
-        breaks.push({ psi: turning, singular: true });
+        breaks.push({ psi: turning, singular: true, smooth: true });
       }
     }
     breaks.sort((a, b) => a.psi - b.psi);
-    const points = [{ psi: 0, singular: false }, ...breaks, { psi: Math.PI, singular: false }];
+    const points: { psi: number; singular: boolean; smooth?: boolean }[] = [{ psi: 0, singular: false }, ...breaks, { psi: Math.PI, singular: false }];
     const plans: SegmentPlan[] = [];
     for (let i = 0; i + 1 < points.length; i++) {
       const a = points[i];
       const b = points[i + 1];
       if (!(b.psi > a.psi)) continue;
       const mid = 0.5 * (a.psi + b.psi);
-      plans.push({ map: a.singular ? MAP_LOG_FROM_LEFT : MAP_UNIFORM, lo: a.psi, hi: mid, anchor: a.psi });
-      plans.push({ map: b.singular ? MAP_LOG_TO_RIGHT : MAP_UNIFORM, lo: mid, hi: b.psi, anchor: b.psi });
+      plans.push({ map: a.singular ? MAP_LOG_FROM_LEFT : MAP_UNIFORM, lo: a.psi, hi: mid, anchor: a.psi, smooth: a.smooth === true });
+      plans.push({ map: b.singular ? MAP_LOG_TO_RIGHT : MAP_UNIFORM, lo: mid, hi: b.psi, anchor: b.psi, smooth: b.smooth === true });
     }
     const counts = plans.map((p) => {
       if (p.map === MAP_UNIFORM) return UNIFORM_NODES;
@@ -250,6 +283,7 @@ export class RayTable {
         if (i === (n >> 1)) fate = trace.fate;
       }
       fillSlopes(phi, slope, offset, n, dt);
+      if (p.smooth && p.map !== MAP_UNIFORM) fillSmoothSlopes(phi, slope, offset, n, t0, dt);
       layout.set([p.map, p.lo, p.hi, p.anchor, t0, dt, offset, n, fate], HEADER_LENGTH + SEGMENT_STRIDE * k);
       offset += n;
     });
@@ -300,22 +334,28 @@ export class RayTable {
     const n = L[base + 7];
     let t: number;
     let dtDpsi: number;
+    // distance from the segment's anchor, radians (log maps only); floored so an exact hit stays finite
+    let d = 0;
     if (map === MAP_UNIFORM) {
       t = psi;
       dtDpsi = 1;
-    } else if (map === MAP_LOG_FROM_LEFT) {
-      const d = psi - L[base + 3];
-      t = Math.log(d);
-      dtDpsi = 1 / d;
     } else {
-      const d = L[base + 3] - psi;
+      d = Math.max(map === MAP_LOG_FROM_LEFT ? psi - L[base + 3] : L[base + 3] - psi, NEAREST_DISTANCE_RAD);
       t = Math.log(d);
-      dtDpsi = -1 / d;
+      dtDpsi = map === MAP_LOG_FROM_LEFT ? 1 / d : -1 / d;
     }
     const x = (t - t0) / dt;
     let phiValue: number;
     let dPhiDt: number;
-    if (x <= 0) {
+    if (x <= 0 && Math.abs(this.slope[offset]) < SMOOTH_ANCHOR_SLOPE) {
+      // Closer than the nearest node to a smooth break (k^r = 0, or the horizon image): phi is smooth
+      // in psi there, so dphi/dt = d dphi/dd vanishes with d; extrapolate linearly in d, not in t.
+      const d0 = Math.exp(t0);
+      const dPhiDd = this.slope[offset] / d0; // fillSmoothSlopes: slope = d dphi/dd
+      phiValue = this.phi[offset] + dPhiDd * (d - d0);
+      out.fate = L[base + 8];
+      return this.finish(psi, phiValue, dPhiDd * (map === MAP_LOG_FROM_LEFT ? 1 : -1), out);
+    } else if (x <= 0) {
       // Beyond the closest node to a crossing: phi is linear in log-distance there (Bozza 2002).
       phiValue = this.phi[offset] + this.slope[offset] * (t - t0);
       dPhiDt = this.slope[offset];
@@ -333,9 +373,13 @@ export class RayTable {
       phiValue = (2 * s3 - 3 * s2 + 1) * p0 + (s3 - 2 * s2 + s) * m0 + (-2 * s3 + 3 * s2) * p1 + (s3 - s2) * m1;
       dPhiDt = ((6 * s2 - 6 * s) * p0 + (3 * s2 - 4 * s + 1) * m0 + (-6 * s2 + 6 * s) * p1 + (3 * s2 - 2 * s) * m1) / dt;
     }
-    const energy = this.eps - Math.cos(psi) * this.ur;
-    const dPhiDPsi = dPhiDt * dtDpsi;
     out.fate = L[base + 8];
+    return this.finish(psi, phiValue, dPhiDt * dtDpsi, out);
+  }
+
+  /** Fills the lookup record from phi and dphi/dpsi: shift g and the lensing Jacobian. */
+  private finish(psi: number, phiValue: number, dPhiDPsi: number, out: RayLookup): RayLookup {
+    const energy = this.eps - Math.cos(psi) * this.ur;
     out.phi = phiValue;
     out.g = energy === 0 ? Infinity : 1 / Math.abs(energy);
     out.dPhiDPsi = dPhiDPsi;

@@ -83,16 +83,18 @@ export function buildLensLut(table: RayTable, eps: number, ur: number): LensLut 
   const fate = new Uint8Array(n + 1);
   const rec = createRayLookup();
   const side = createRayLookup();
+  // look angle where k^r = 0 (the ray's turning point is the camera), cos psi = ur / eps; none inside
+  const turningPsi = eps > 0 && Math.abs(ur / eps) < 1 ? Math.acos(ur / eps) : NaN;
   for (let k = 0; k <= n; k++) {
     table.lookup(k * h, rec);
     phi[k] = rec.phi;
     slope[k] = rec.dPhiDPsi;
     fate[k] = rec.fate;
-    if (!Number.isFinite(rec.phi) || !Number.isFinite(rec.dPhiDPsi)) {
-      // a node exactly on one of the table's log-graded anchors (e.g. psi = pi/2 for a hovering camera,
-      // where k^r = 0) comes back NaN, and the table's dphi/dpsi is unreliable within ~1e-5 rad of it
-      // (phi itself stays good to ~1e-11 there). Where phi is smooth across the node, use the mean of
-      // phi either side and their central difference (errors ~2e-9 rad and ~1e-7 relative); a true
+    if (!Number.isFinite(rec.phi) || !Number.isFinite(rec.dPhiDPsi) || Math.abs(k * h - turningPsi) < NODE_NUDGE_RAD) {
+      // within 1e-4 rad of the camera's turning point (k^r = 0, e.g. psi = pi/2 for a hovering camera) the
+      // traced phi carries a ~1e-9 rad bias that flips sign across it, so the table's dphi/dpsi there is good
+      // to only ~1e-4 relative (phi itself to ~1e-9 rad). Where phi is smooth across the node, use the mean
+      // of phi either side and their central difference (errors ~2e-9 rad and ~1e-7 relative); a true
       // singularity changes fate or stays NaN and its bins defer to the table
       const a = Math.max(0, k * h - NODE_NUDGE_RAD);
       const b = Math.min(Math.PI, k * h + NODE_NUDGE_RAD);

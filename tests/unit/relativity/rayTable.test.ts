@@ -46,6 +46,37 @@ describe('RayTable.lookup', () => {
     }
   });
 
+  it('should read the smooth break where k^r = 0 (psi = pi/2 for a hovering camera) without NaN, to the stated bound', () => {
+    // Reference: the exact tracer observeRay; its dphi/dpsi by a central difference with a 1e-5 rad step
+    // (observeRay's phi carries ~4e-9 rad of roundoff next to k^r = 0, so smaller steps are noise). The
+    // derivative only sizes pixel footprints and the Jacobian, so 1e-3 relative is ample (common practice).
+    const out = createRayLookup();
+    for (const r of [5, 3.2, 30]) {
+      const table = buildRayTableForRadialObserver(r, null);
+      const exactPhi = (psi: number) => observeRay(r, psi, { kind: 'static' }).phi;
+      const h = 1e-5;
+      const slope = (exactPhi(Math.PI / 2 + h) - exactPhi(Math.PI / 2 - h)) / (2 * h);
+      for (const offset of [0, 1e-15, -1e-15, 1e-11, -1e-11, 1e-9, -1e-9, 1e-7, -1e-7]) {
+        const psi = Math.PI / 2 + offset;
+        table.lookup(psi, out);
+        expect(Number.isFinite(out.phi) && Number.isFinite(out.dPhiDPsi) && Number.isFinite(out.jacobian), `r = ${r}, offset ${offset}`).toBe(true);
+        expectClose(out.phi, exactPhi(psi), TABLE_PHI_BOUND_RAD, `phi at r = ${r}, psi = pi/2 + ${offset}`);
+        expectClose(out.dPhiDPsi, slope, 1e-3 * Math.abs(slope), `dphi/dpsi at r = ${r}, psi = pi/2 + ${offset}`);
+      }
+    }
+  });
+
+  it('should stay finite exactly on the shadow edge, where phi diverges', () => {
+    // Bozza 2002: phi grows like -log|psi - psi_edge|; an exact hit is read 1e-300 rad away.
+    const out = createRayLookup();
+    for (const [r, energy] of CAMERAS) {
+      const table = buildRayTableForRadialObserver(r, energy);
+      if (!Number.isFinite(table.shadowEdgePsi)) continue;
+      table.lookup(table.shadowEdgePsi, out);
+      expect(Number.isFinite(out.phi) && Number.isFinite(out.dPhiDPsi), `r = ${r}`).toBe(true);
+    }
+  });
+
   it('should be continuous across r = 2 for a falling observer', () => {
     // Property (physics.md section 8): the view of a falling camera is continuous through the horizon.
     const out = createRayLookup();
