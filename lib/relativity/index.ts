@@ -33,6 +33,7 @@ export {
 export { buildWorldline, validateWorldline } from './worldline/build';
 export type { Worldline, BuiltSegment } from './worldline/build';
 export { sampleWorldline } from './worldline/sample';
+export { distantObserverTime } from './worldline/distantTime';
 export type { WorldlineSample } from './worldline/sample';
 export { orbitBand } from './worldline/orbitBand';
 export { decomposeFourVelocity, cameraTetradPG } from './worldline/cameraFrame';

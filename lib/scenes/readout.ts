@@ -6,6 +6,7 @@
 import {
   boostLookDirection,
   buildWorldline,
+  distantObserverTime,
   massScale,
   observeRay,
   sampleWorldline,
@@ -31,6 +32,11 @@ export type SceneReadout = {
   orbitBand: OrbitBand;
   /** Proper time left to the singularity (the countdown), seconds; null if the path does not reach it. */
   countdownSeconds: number | null;
+  /**
+   * Time a distant observer at rest counts since the shot began (Schwarzschild t), seconds; null once
+   * the camera is at or inside the horizon, which no distant observer ever sees.
+   */
+  distantTimeSeconds: number | null;
   thrustG: number;
   stretchG: number;
   squeezeG: number;
@@ -81,6 +87,10 @@ export function sceneWorldline(spec: Pick<SceneSpec, 'massSolar' | 'path'>): Wor
   return buildWorldline(toWorldlineSpec(spec));
 }
 
+function nullableTimes(m: number | null, secondsPerM: number): number | null {
+  return m === null ? null : m * secondsPerM;
+}
+
 /**
  * Readouts at proper time tau (M) along the scene's path.
  * @param bodyLengthMetres length the tides act across (default 2 m, a person)
@@ -102,6 +112,7 @@ export function readoutAt(spec: Pick<SceneSpec, 'massSolar'>, worldline: Worldli
     speedRelativeToHover: r > 2 ? Math.sqrt(Math.max(0, 1 - f / (energy * energy))) : null,
     orbitBand: sample.orbitBand,
     countdownSeconds: sample.properTimeLeftSeconds,
+    distantTimeSeconds: nullableTimes(distantObserverTime(worldline, sample.tau), scale.secondsPerM),
     thrustG: sample.thrustG,
     stretchG: sample.stretchG,
     squeezeG: sample.squeezeG,

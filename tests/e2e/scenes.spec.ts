@@ -123,6 +123,9 @@ test.describe('scene editor', () => {
     expect(Math.abs(shown.countdownSeconds! - expected.countdownSeconds!) / expected.countdownSeconds!).toBeLessThan(1e-9);
     expect(shown.orbitBand).toBe(expected.orbitBand);
     await expect(page.getByTestId('readout-band')).toContainText(expected.orbitBand);
+    // distant-observer time: null beyond the horizon, else the engine's value
+    if (expected.distantTimeSeconds === null) expect(shown.distantSeconds).toBeNull();
+    else expect(Math.abs(shown.distantSeconds! - expected.distantTimeSeconds) / expected.distantTimeSeconds).toBeLessThan(1e-9);
 
     // Save: a new revision based on revision 1.
     await page.getByTestId('revision-message').fill('drop from 10 r_s');

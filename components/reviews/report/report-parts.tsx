@@ -69,6 +69,7 @@ export function MomentFigures({ item, massSolar }: { item: KeyMomentReport; mass
       <Figure label="Thrust" value={readout.thrustG === 0 ? '0 g (free fall)' : `${formatNumber(readout.thrustG, 4)} g`} />
       <Figure label={`Tides across ${readout.bodyLengthMetres} m`} value={`stretch ${formatNumber(readout.stretchG, 4)} g · squeeze ${formatNumber(readout.squeezeG, 4)} g`} note={`${readout.stretchG >= readout.disruptionThresholdG ? 'Above' : 'Below'} the illustrative ${readout.disruptionThresholdG} g disruption line (an assumption).`} />
       <Figure label="Countdown to the singularity" value={readout.countdownSeconds === null ? 'none: this path does not reach it' : formatDuration(readout.countdownSeconds)} />
+      <Figure label="Time seen far away" value={readout.distantTimeSeconds === null ? 'never: a distant observer does not see the camera reach the horizon' : formatDuration(readout.distantTimeSeconds)} note="Since the shot began, on the clock of an observer at rest far from the hole (Schwarzschild time)." />
       <Figure label="Ray table against the exact computation" testId="moment-ray-audit" value={audit} note="Light directions from the renderer's lookup table, compared with the exact calculation; a 1e-6 rad band at the shadow's edge is left out." />
     </dl>
   );

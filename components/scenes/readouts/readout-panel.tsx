@@ -24,6 +24,7 @@ export function ReadoutPanel({ readout, stale }: { readout: SceneReadout | null;
       data-testid="readouts"
       data-tau={readout.tau}
       data-countdown-seconds={readout.countdownSeconds ?? ''}
+      data-distant-seconds={readout.distantTimeSeconds ?? ''}
       data-orbit-band={readout.orbitBand}
       data-radius-rs={readout.radiusRs}
       className={stale ? 'opacity-60' : undefined}
@@ -43,8 +44,12 @@ export function ReadoutPanel({ readout, stale }: { readout: SceneReadout | null;
       <Row label="Speed past a hovering observer" testId="readout-speed" note={readout.speedRelativeToHover === null ? 'Inside the horizon nothing can hover, so there is no such observer.' : undefined}>
         {readout.speedRelativeToHover === null ? 'no hovering observer' : `${formatNumber(readout.speedRelativeToHover, 4)} c`}
       </Row>
-      <Row label="Time seen far away" testId="readout-distant-time" note="Distant-observer time is not computed by this version.">
-        not computed
+      <Row
+        label="Time seen far away"
+        testId="readout-distant-time"
+        note={readout.distantTimeSeconds === null ? 'A distant observer never sees the camera reach the horizon: no far-away time applies from there on.' : 'Since the shot began, on the clock of an observer at rest far from the hole.'}
+      >
+        {readout.distantTimeSeconds === null ? 'never (beyond the horizon)' : formatDuration(readout.distantTimeSeconds)}
       </Row>
       <Row label="Shift range across the frame" testId="readout-shift" note="1 = unshifted; below 1 redder, above 1 bluer.">
         {readout.shiftRange ? `${formatNumber(readout.shiftRange.min, 3)} – ${formatNumber(readout.shiftRange.max, 3)}` : 'not computed for this motion'}

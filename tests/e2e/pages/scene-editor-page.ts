@@ -61,12 +61,14 @@ export class SceneEditorPage {
     return { width, height, rgba: Buffer.from(base64, 'base64') };
   }
 
-  async readouts(): Promise<{ tau: number; countdownSeconds: number | null; orbitBand: string; radiusRs: number }> {
+  async readouts(): Promise<{ tau: number; countdownSeconds: number | null; distantSeconds: number | null; orbitBand: string; radiusRs: number }> {
     const el = this.page.getByTestId('readouts');
     const countdown = await el.getAttribute('data-countdown-seconds');
+    const distant = await el.getAttribute('data-distant-seconds');
     return {
       tau: Number(await el.getAttribute('data-tau')),
       countdownSeconds: countdown ? Number(countdown) : null,
+      distantSeconds: distant ? Number(distant) : null,
       orbitBand: (await el.getAttribute('data-orbit-band')) ?? '',
       radiusRs: Number(await el.getAttribute('data-radius-rs')),
     };
