@@ -8,6 +8,7 @@
 //   PROJECTION        0 flat, 1 dome master, 2 equirectangular, 3 cube face (lib/webgl PROJECTION_CODES)
 //   LENSING           1 lensed; 0 plain sky remap (phi = psi, g = 1)
 //   BOOST             1 when the camera moves relative to its radial reference observer (uBoostVelocity != 0)
+//   DASHED_GRIDS      1 when a grid drawn in this frame is dashed (gridCoverage's dash code)
 //
 // Uniforms (units):
 //   uFrameSizePx      vec2   frame width, height in pixels
@@ -19,7 +20,6 @@
 //   uCameraToHole     mat3   camera frame -> hole frame (J2000 equatorial axes)
 //   uBoostVelocity    vec3   camera velocity relative to the radial reference observer, camera frame, units of c
 //   uEps, uUr         float  reference observer's -u_t and u^r (geometric units)
-//   uSegmentCount     int    ray-table segments in use
 //   uSegHi[j]         vec4   upper psi bounds (rad) of segments 4j..4j+3; 1e30 for the last segment and unused ones
 //   uSegA[i]          vec4   (map 0 uniform / 1 log from left / 2 log to right, psi_hi rad, anchor rad, fate)
 //   uSegB[i]          vec4   (t0, dt, node offset, node count) of the sampling variable t (psi or ln|psi - anchor|)
@@ -32,13 +32,12 @@
 
 #define MAX_SEGMENTS 12
 #define RAY_TABLE_WIDTH 1024
+#define RAY_TABLE_WIDTH_LOG2 10
 #define PI 3.141592653589793
 
-// WHEN(c) { ... } runs the block only where c holds, like `if`, but as a loop of at most one pass. Software
-// WebGL (SwiftShader) runs both sides of an `if` for every 2 x 2 pixel quad under a lane mask, so work in an
-// untaken branch still costs; a loop whose condition fails in all lanes of the quad is skipped. On a hardware
-// GPU it costs what an `if` costs. Never `break` or `continue` an enclosing loop from inside a WHEN block.
-#define WHEN(c) for (int when_ = 0; when_ < ((c) ? 1 : 0); when_++)
+// Software WebGL (SwiftShader) runs every branch of a 2 x 2 pixel quad under a lane mask and every loop for the
+// longest lane, so code that is compiled in costs every pixel, taken or not: settings that are off are
+// compiled out (the #if switches below), and paths share work rather than branch around it.
 
 #ifndef PROJECTION
 #define PROJECTION 0
@@ -48,6 +47,9 @@
 #endif
 #ifndef BOOST
 #define BOOST 0
+#endif
+#ifndef DASHED_GRIDS
+#define DASHED_GRIDS 1
 #endif
 
 uniform vec2 uFrameSizePx;
@@ -60,7 +62,6 @@ uniform mat3 uCameraToHole;
 uniform vec3 uBoostVelocity;
 uniform float uEps;
 uniform float uUr;
-uniform int uSegmentCount;
 uniform vec4 uSegHi[MAX_SEGMENTS / 4];
 uniform vec4 uSegA[MAX_SEGMENTS];
 uniform vec4 uSegB[MAX_SEGMENTS];
@@ -117,17 +118,17 @@ float boostLook(inout vec3 n, vec3 v) {
   return 1.0 / energy;
 }
 
+// node i of the table, RAY_TABLE_WIDTH per row (shift and mask: software GPUs divide integers lane by lane)
 vec2 rayNode(int i) {
-  return texelFetch(uRayTable, ivec2(i % RAY_TABLE_WIDTH, i / RAY_TABLE_WIDTH), 0).rg;
+  return texelFetch(uRayTable, ivec2(i & (RAY_TABLE_WIDTH - 1), i >> RAY_TABLE_WIDTH_LOG2), 0).rg;
 }
 
 // RayTable.lookup: fate, phi and dphi/dpsi at look angle psi (cubic Hermite in the segment's variable t).
-// Written without branches (one log, two node fetches), see WHEN above.
+// Written without loops or branches (one log, two node fetches), see the note on SwiftShader above.
 void lookupRayTable(float psi, out float fate, out float phi, out float dPhiDPsi) {
   // segment: how many upper bounds lie below psi (the bounds rise; the last segment's and unused ones are 1e30)
   vec4 p4 = vec4(psi);
-  int seg = 0;
-  for (int j = 0; j < MAX_SEGMENTS / 4; j++) seg += int(dot(vec4(greaterThan(p4, uSegHi[j])), vec4(1.0)));
+  int seg = int(dot(vec4(greaterThan(p4, uSegHi[0])) + vec4(greaterThan(p4, uSegHi[1])) + vec4(greaterThan(p4, uSegHi[2])), vec4(1.0)));
   vec4 a = uSegA[seg];
   vec4 b = uSegB[seg];
   float t0 = b.x;
@@ -241,24 +242,31 @@ float squareWaveCoverage(float x, float h) {
   return (onLength(x + h) - onLength(x - h)) / (2.0 * h);
 }
 
-// lib/render/grids.ts drawLensedGrid: latitude/longitude grid line coverage at tr.dir, line widths measured
-// on screen through the end point's derivatives per output pixel (tr.dA, tr.dB).
-float gridCoverage(Trace tr, float spacing, float lineWidthPx, float filterPx, bool dashed) {
+// Latitude (atan of z over |xy| rather than asin(z): SwiftShader's asin is good to only ~1e-4 rad) and
+// longitude of a unit vector, radians; shared by the grids and the sky-map lookup.
+vec2 latLon(vec3 d) {
+  return vec2(atan(d.z, length(d.xy)), atan(d.y, d.x));
+}
+
+// lib/render/grids.ts drawLensedGrid: latitude/longitude grid line coverage at tr.dir (latitude and longitude
+// ll from latLon), line widths measured on screen through the end point's derivatives per output pixel (tr.dA, tr.dB).
+float gridCoverage(Trace tr, vec2 ll, float spacing, float lineWidthPx, float filterPx, bool dashed) {
   vec3 d = tr.dir;
-  // atan of (z, |xy|) rather than asin(z): SwiftShader's asin is good to only ~1e-4 rad
   float cosLat = max(length(d.xy), 1e-12);
-  float lat = atan(d.z, cosLat);
-  float lon = atan(d.y, d.x);
+  float lat = ll.x;
+  float lon = ll.y;
   float latRate = length(vec2(tr.dA.z, tr.dB.z)) / cosLat;
   float lonA = (d.x * tr.dA.y - d.y * tr.dA.x) / (cosLat * cosLat);
   float lonB = (d.x * tr.dB.y - d.y * tr.dB.x) / (cosLat * cosLat);
   float lonRate = length(vec2(lonA, lonB));
   float parallel = lineCoverage(abs(lat - floor(lat / spacing + 0.5) * spacing), latRate, spacing, lineWidthPx, filterPx);
   float meridian = lineCoverage(abs(lon - floor(lon / spacing + 0.5) * spacing), lonRate, spacing, lineWidthPx, filterPx);
+#if DASHED_GRIDS
   if (dashed) {
     float dash = spacing / 4.0;
     if (parallel > 0.0) parallel *= squareWaveCoverage(lon / dash, 0.5 * filterPx * lonRate / dash);
     if (meridian > 0.0) meridian *= squareWaveCoverage(lat / dash, 0.5 * filterPx * latRate / dash);
   }
+#endif
   return max(parallel, meridian);
 }

@@ -6,8 +6,8 @@
 // Compile-time switches (besides those of sky.common.glsl; lib/webgl/shaderVariant.ts):
 //   SAMPLES             samples per axis (1..4), box filter
 //   TONE_MAP            0 none, 1 Reinhard (luminance), 2 exponential 1 - exp(-c)
-//   HORIZON_GRID, FAR_SIDE_GRID, CELESTIAL_GRID   1 where that grid is drawn (the celestial one in the
-//                       "where the light comes from" mode)
+//   HORIZON_GRID, FAR_SIDE_GRID, CELESTIAL_GRID   1 where that grid is drawn and its rays can occur in the
+//                       frame (the celestial one in the "where the light comes from" mode)
 //   STARS               1: star catalogue on;  DIFFUSE 1: diffuse map bound;  MILKY_WAY 1: Milky Way on
 //   UNIFORM_SKY         1: uniform sky brightness on
 //
@@ -16,12 +16,16 @@
 //   uBeaming            bool    scale brightness by g^4
 //   uExposureScale      float   display units per (mag-0 star flux per steradian): 2^ev / 1000
 //   uColourTable        sampler2D RGBA float, one row: unit-luminance linear sRGB of a blackbody against ln T
-//   uColourLogMinK      float   ln T of the first entry (ln K);  uColourLogSpan float ln T span of the table
+//   uColourLogMinK      float   ln T of the first entry (ln K);  uColourEntries float  entries in the table
+//   uColourIndexPerLog  float   table entries per unit of ln T
 //   uStarGain float;  uPsfSigmaPx float (pixels);  uSourceSizeRad float (radians)
-//   uStarPosFlux        sampler2D RGBA float: hole-frame unit vector and flux (mag-0 units) per star, 1024 wide
-//   uStarLogT           sampler2D R float: ln(T / 1 K) per star, 1024 wide
-//   uCellStart          sampler2D R float: first star of each cell of lib/render's star grid, 1024 wide
-//   uMaxRun             int     most stars in a z-run of three cells (loop bound)
+//   uStarTiles          sampler2D RG float: (first entry, entry count) of each cube-map tile, the levels one
+//                       below the other (lib/webgl/starTiles.ts StarTileIndex)
+//   uStarTileEntries    sampler2D RGBA float: unit vector and flux of the star of each list entry, 1024 wide
+//   uStarTileEntryLogT  sampler2D R float: ln(T / 1 K) of the star of each entry, 1024 wide
+//   uMaxTileList        int     longest tile list (loop bound)
+//   uStarTileLevels[3]  vec4    per level, narrowest margin first: (tiles per face edge, largest kernel reach
+//                       served (3 sigma, chord of unit vectors), first row in uStarTiles, 0)
 //   uDiffuse            sampler2D RGBA float mip-mapped equirect (Milky Way per sr, star flux per sr,
 //                       star flux x K per sr);  uDiffuseTexelRad float (radians)
 //   uMilkyWayGain float;  uMilkyWayLogT float (ln K)
@@ -63,27 +67,23 @@ precision highp sampler2D;
 #define UNIFORM_SKY 0
 #endif
 
-#define WHEN_GRID WHEN
-#define WHEN_SKY if
-#define WHEN_STAR if
-#define WHEN_MAP WHEN
-
 #define STAR_CELL_SIZE 0.02
-#define STAR_CELLS 101
 
 uniform bool uColourShift;
 uniform bool uBeaming;
 uniform float uExposureScale;
 uniform highp sampler2D uColourTable;
 uniform float uColourLogMinK;
-uniform float uColourLogSpan;
+uniform float uColourEntries;
+uniform float uColourIndexPerLog;
 uniform float uStarGain;
 uniform float uPsfSigmaPx;
 uniform float uSourceSizeRad;
-uniform highp sampler2D uStarPosFlux;
-uniform highp sampler2D uStarLogT;
-uniform highp sampler2D uCellStart;
-uniform int uMaxRun;
+uniform highp sampler2D uStarTiles;
+uniform highp sampler2D uStarTileEntries;
+uniform highp sampler2D uStarTileEntryLogT;
+uniform int uMaxTileList;
+uniform vec4 uStarTileLevels[3];
 uniform highp sampler2D uDiffuse;
 uniform float uDiffuseTexelRad;
 uniform float uMilkyWayGain;
@@ -101,80 +101,64 @@ out vec4 fragColor;
 
 // lib/render/colourTable.ts blackbodyColourLog: linear interpolation between table entries.
 vec3 blackbodyLog(float logT) {
-  float entries = float(textureSize(uColourTable, 0).x);
-  float x = clamp((logT - uColourLogMinK) / uColourLogSpan * (entries - 1.0), 0.0, entries - 1.0);
-  return texture(uColourTable, vec2((x + 0.5) / entries, 0.5)).rgb;
+  float x = clamp((logT - uColourLogMinK) * uColourIndexPerLog, 0.0, uColourEntries - 1.0);
+  return texture(uColourTable, vec2((x + 0.5) / uColourEntries, 0.5)).rgb;
+}
+
+// entry i of a 1024-wide array texture (shift and mask: software GPUs divide integers lane by lane)
+ivec2 arrayTexel(int i) {
+  return ivec2(i & 1023, i >> 10);
 }
 
 float fetchR(sampler2D tex, int i) {
-  return texelFetch(tex, ivec2(i % 1024, i / 1024), 0).r;
+  return texelFetch(tex, arrayTexel(i), 0).r;
 }
 
 #if STARS
-// Star light by Gaussian kernels on the sky (lib/render/shade.ts, the star loop).
+// lib/webgl/starTiles.ts starTileOf: face, column and row of the tile holding direction d, with n tiles per
+// face edge, as a texel of uStarTiles whose rows start at firstRow.
+ivec2 starTile(vec3 d, float n, int firstRow) {
+  // without branches (see sky.common.glsl): the face of the largest component, the other two divided by it
+  vec3 a = abs(d);
+  bool onX = a.x >= a.y && a.x >= a.z;
+  bool onY = !onX && a.y >= a.z;
+  int axis = onX ? 0 : onY ? 1 : 2;
+  float major = onX ? d.x : onY ? d.y : d.z;
+  vec2 uv = (onX ? d.yz : onY ? d.xz : d.xy) / abs(major);
+  int face = 2 * axis + (major >= 0.0 ? 0 : 1);
+  int edge = int(n);
+  ivec2 cr = clamp(ivec2(floor((uv + 1.0) * 0.5 * n)), ivec2(0), ivec2(edge - 1));
+  return ivec2(face * edge + cr.x, firstRow + cr.y);
+}
+
+// Star light by Gaussian kernels on the sky (lib/render/shade.ts, the star loop): every star closer than
+// reach = 3 sigma adds its kernel. The one tile list read holds every star within its margin of the tile: that
+// of the first level whose margin covers the reach (the last level's margin is the widest reach summed).
 vec3 starLight(vec3 d, float sigma, float weight, float logShift) {
   vec3 sum = vec3(0.0);
   float reach = 3.0 * sigma;
   float reach2 = reach * reach;
   float inv2s2 = 1.0 / (2.0 * sigma * sigma);
   float norm = uStarGain * weight / (2.0 * PI * sigma * sigma);
-  ivec3 lo = ivec3(floor((d - reach + 1.0) / STAR_CELL_SIZE));
-  ivec3 hi = ivec3(floor((d + reach + 1.0) / STAR_CELL_SIZE));
-  lo = max(lo, ivec3(0));
-  hi = min(hi, ivec3(STAR_CELLS - 1));
-  for (int ix = lo.x; ix <= hi.x; ix++) {
-    for (int iy = lo.y; iy <= hi.y; iy++) {
-      int base = (ix * STAR_CELLS + iy) * STAR_CELLS;
-      int first = int(fetchR(uCellStart, base + lo.z) + 0.5);
-      int end = min(int(fetchR(uCellStart, base + hi.z + 1) + 0.5), first + uMaxRun);
-      for (int s = first; s < end; s++) {
-        vec4 star = texelFetch(uStarPosFlux, ivec2(s % 1024, s / 1024), 0);
-        vec3 e = star.xyz - d;
-        float dist2 = dot(e, e);
-        WHEN_STAR(dist2 < reach2) {
-          float w = norm * star.w * exp(-dist2 * inv2s2);
-          sum += w * blackbodyLog(fetchR(uStarLogT, s) + logShift);
-        }
-      }
+  vec4 level = uStarTileLevels[2];
+  if (reach <= uStarTileLevels[1].y) level = uStarTileLevels[1];
+  if (reach <= uStarTileLevels[0].y) level = uStarTileLevels[0];
+  ivec2 tile = starTile(d, level.x, int(level.z));
+  vec2 list = texelFetch(uStarTiles, tile, 0).rg;
+  int first = int(list.x + 0.5);
+  int end = first + min(int(list.y + 0.5), uMaxTileList);
+  for (int s = first; s < end; s++) {
+    vec4 star = texelFetch(uStarTileEntries, arrayTexel(s), 0);
+    vec3 e = star.xyz - d;
+    float dist2 = dot(e, e);
+    if (dist2 < reach2) {
+      float w = norm * star.w * exp(-dist2 * inv2s2);
+      sum += w * blackbodyLog(fetchR(uStarTileEntryLogT, s) + logShift);
     }
   }
   return sum;
 }
 #endif
-
-// Radiance (mag-0 fluxes per sr, linear sRGB) of one sample whose light comes from the sky.
-vec3 skyRadiance(Trace tr, float samples) {
-  vec3 radiance = vec3(0.0);
-  float shift = uColourShift ? tr.g : 1.0;
-  float logShift = log(shift);
-  float g2 = tr.g * tr.g;
-  float beam = uBeaming ? g2 * g2 : 1.0;
-  float mapWeight = 0.0;
-#if STARS
-  float starSigma = max(uPsfSigmaPx * tr.footRad, uSourceSizeRad);
-  float sigmaMax = STAR_CELL_SIZE / 3.0;
-  mapWeight = smoothstep(0.5 * sigmaMax, sigmaMax, starSigma);
-  if (mapWeight < 1.0) radiance += starLight(tr.dir, starSigma, 1.0 - mapWeight, logShift);
-#endif
-#if DIFFUSE
-  float u = atan(tr.dir.y, tr.dir.x) / (2.0 * PI);
-  u -= floor(u);
-  float v = 0.5 - atan(tr.dir.z, length(tr.dir.xy)) / PI;
-  float ratio = tr.footRad / samples / uDiffuseTexelRad;
-  float lod = ratio > 1.0 ? log2(ratio) : 0.0;
-  vec4 s = textureLod(uDiffuse, vec2(u, v), lod);
-#if MILKY_WAY
-  radiance += s.r * uMilkyWayGain * blackbodyLog(uMilkyWayLogT + logShift);
-#endif
-#if STARS
-  WHEN_MAP(mapWeight > 0.0 && s.g > 0.0) radiance += s.g * uStarGain * mapWeight * blackbodyLog(log(s.b / s.g) + logShift);
-#endif
-#endif
-#if UNIFORM_SKY
-  radiance += uUniformBrightness * blackbodyLog(log(uUniformTemperatureK) + logShift);
-#endif
-  return radiance * beam;
-}
 
 // Radiance (mag-0 fluxes per sr, linear sRGB) and overlay (premultiplied colour, coverage) of one sample.
 void shadeSample(vec2 p, float samples, out vec3 radiance, out vec4 overlay, out float celestial) {
@@ -183,17 +167,60 @@ void shadeSample(vec2 p, float samples, out vec3 radiance, out vec4 overlay, out
   celestial = 0.0;
   Trace tr = traceFramePoint(p);
   bool sky = tr.fate > -0.5 && tr.fate < 0.5;
+  // colours shift by g: ln(g) moves a blackbody's ln T (physics.md section 6)
+  float logShift = uColourShift ? log(tr.g) : 0.0;
+  float mapWeight = 0.0;
+  vec3 light = vec3(0.0);
+#if STARS
+  // the star loop first: the fewer values live across a loop, the fewer SwiftShader saves and reloads
+  float starSigma = max(uPsfSigmaPx * tr.footRad, uSourceSizeRad);
+  float sigmaMax = STAR_CELL_SIZE / 3.0;
+  mapWeight = smoothstep(0.5 * sigmaMax, sigmaMax, starSigma);
+  if (sky && mapWeight < 1.0) light = starLight(tr.dir, starSigma, 1.0 - mapWeight, logShift);
+#endif
+  vec2 ll = latLon(tr.dir);
 #if HORIZON_GRID || FAR_SIDE_GRID || CELESTIAL_GRID
   // one grid per sample: the horizon's or far side's where the ray ends on r = 2M, the celestial one on the sky
   bool horizon = tr.fate > 0.5 && tr.fate < 1.5;
-  vec4 grid = sky ? vec4(float(CELESTIAL_GRID), uCelestialGrid.yz, 0.0) : horizon ? uHorizonGrid : uFarSideGrid;
-  WHEN_GRID(tr.fate > -0.5 && grid.x > 0.5) {
-    float cover = gridCoverage(tr, grid.y, grid.z, 1.0 / samples, grid.w > 0.5);
+#if HORIZON_GRID
+  vec4 horizonGrid = uHorizonGrid;
+#else
+  vec4 horizonGrid = vec4(0.0);
+#endif
+#if FAR_SIDE_GRID
+  vec4 farSideGrid = uFarSideGrid;
+#else
+  vec4 farSideGrid = vec4(0.0);
+#endif
+  vec4 grid = sky ? vec4(float(CELESTIAL_GRID), uCelestialGrid.yz, 0.0) : horizon ? horizonGrid : farSideGrid;
+  if (tr.fate > -0.5 && grid.x > 0.5) {
+    float cover = gridCoverage(tr, ll, grid.y, grid.z, 1.0 / samples, grid.w > 0.5);
     if (sky) celestial = cover;
     else overlay = vec4((horizon ? uHorizonColour : uFarSideColour) * cover, cover);
   }
 #endif
-  WHEN_SKY(sky) radiance = skyRadiance(tr, samples);
+#if DIFFUSE
+  // Milky Way and the star-light map for wide kernels (lib/render/skyMap.ts sampleSkyMapIo: mip level from the
+  // footprint, Williams 1983)
+  float u = ll.y / (2.0 * PI);
+  u -= floor(u);
+  float v = 0.5 - ll.x / PI;
+  float ratio = tr.footRad / samples / uDiffuseTexelRad;
+  float lod = ratio > 1.0 ? log2(ratio) : 0.0;
+  vec4 m = textureLod(uDiffuse, vec2(u, v), lod);
+#if MILKY_WAY
+  light += m.r * uMilkyWayGain * blackbodyLog(uMilkyWayLogT + logShift);
+#endif
+#if STARS
+  if (mapWeight > 0.0 && m.g > 0.0) light += m.g * uStarGain * mapWeight * blackbodyLog(log(m.b / m.g) + logShift);
+#endif
+#endif
+#if UNIFORM_SKY
+  light += uUniformBrightness * blackbodyLog(log(uUniformTemperatureK) + logShift);
+#endif
+  // Liouville: bolometric surface brightness scales as g^4 (physics.md section 6)
+  float g2 = tr.g * tr.g;
+  if (sky) radiance = light * (uBeaming ? g2 * g2 : 1.0);
 }
 
 // sRGB encoding (IEC 61966-2-1) of a display-linear value, clamped to 0..1.

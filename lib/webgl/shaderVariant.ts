@@ -9,6 +9,7 @@
  * exposure, gains) stay uniforms, so moving the camera never recompiles.
  */
 import type { GpuFrame } from './gpuFrame';
+import { FATE_FAR_SIDE, FATE_HORIZON } from '../relativity';
 
 /** #define name -> integer value. */
 export type ShaderDefines = Record<string, number>;
@@ -41,12 +42,22 @@ export function directionsShaderDefines(frame: GpuFrame): ShaderDefines {
   return { PROJECTION: kind, LENSING: frame.lensing ? 1 : 0, BOOST: frame.lensing && moving ? 1 : 0 };
 }
 
+/** True when some ray of the frame can end with this fate (a segment of the packed ray table has it). */
+function fateOccurs(frame: GpuFrame, fate: number): boolean {
+  const table = frame.table;
+  if (!frame.lensing || !table) return false;
+  for (let k = 0; k < table.segmentCount; k++) if (table.segmentA[4 * k + 3] === fate) return true;
+  return false;
+}
+
 /**
  * Switches of sky.lensed.frag.
  * @param frame per-frame GPU inputs (lib/webgl prepareGpuFrame)
  * @param inputs mode and sky sources in use
- * @returns the common switches plus SAMPLES (1..4), TONE_MAP (lib/webgl TONE_MAP_CODES), HORIZON_GRID,
- *   FAR_SIDE_GRID, CELESTIAL_GRID, STARS, DIFFUSE, MILKY_WAY, UNIFORM_SKY (0 or 1)
+ * @returns the common switches plus SAMPLES (1..4), TONE_MAP (lib/webgl TONE_MAP_CODES), and 0 or 1:
+ *   HORIZON_GRID and FAR_SIDE_GRID (enabled, and rays of the frame end on the horizon (fate 1) or the far
+ *   side (fate 2; only inside the horizon, physics.md section 5)), DASHED_GRIDS (one of those is dashed),
+ *   CELESTIAL_GRID, STARS, DIFFUSE, MILKY_WAY, UNIFORM_SKY
  * @throws RangeError for supersampling outside 1..4 or a tone-map code outside 0..2
  */
 export function lensedShaderDefines(frame: GpuFrame, inputs: LensedVariantInputs): ShaderDefines {
@@ -54,12 +65,15 @@ export function lensedShaderDefines(frame: GpuFrame, inputs: LensedVariantInputs
     throw new RangeError(`frame.supersampling must be an integer 1..4; got ${frame.supersampling}`);
   }
   if (!Number.isInteger(frame.toneMap) || frame.toneMap < 0 || frame.toneMap > 2) throw new RangeError(`frame.toneMap must be a tone-map code 0..2; got ${frame.toneMap}`);
+  const horizon = frame.horizonGrid.enabled && fateOccurs(frame, FATE_HORIZON);
+  const farSide = frame.farSideGrid.enabled && fateOccurs(frame, FATE_FAR_SIDE);
   return {
     ...directionsShaderDefines(frame),
     SAMPLES: frame.supersampling,
     TONE_MAP: frame.toneMap,
-    HORIZON_GRID: frame.horizonGrid.enabled ? 1 : 0,
-    FAR_SIDE_GRID: frame.farSideGrid.enabled ? 1 : 0,
+    HORIZON_GRID: horizon ? 1 : 0,
+    FAR_SIDE_GRID: farSide ? 1 : 0,
+    DASHED_GRIDS: (horizon && frame.horizonGrid.dashed) || (farSide && frame.farSideGrid.dashed) ? 1 : 0,
     CELESTIAL_GRID: inputs.sourcesMode ? 1 : 0,
     STARS: inputs.stars ? 1 : 0,
     DIFFUSE: inputs.diffuse ? 1 : 0,

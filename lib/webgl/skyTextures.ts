@@ -1,22 +1,18 @@
 /**
  * Sky data in GPU form, built once per catalogue and magnitude limit (not per
- * frame): the stars as float textures in lib/render's cell order (position and
- * flux in one texture, log temperature in another, so the shifted colour is
- * computed per pixel from g and the blackbody texture), the cell index, the
- * diffuse map (Milky Way brightness, star flux per sr, star flux x K per sr)
- * with lib/render's own box-filtered mip pyramid, and the blackbody colour
- * table. Mirrors lib/render/frame.ts prepareFrame.
+ * frame): the stars as cube-map tile lists (starTiles.ts; position, flux and
+ * log temperature per entry, so the shifted colour is computed per pixel from
+ * g and the blackbody texture), the diffuse map (Milky Way brightness, star
+ * flux per sr, star flux x K per sr) with lib/render's own box-filtered mip
+ * pyramid, and the blackbody colour table. Mirrors lib/render/frame.ts prepareFrame.
  */
 import type { StarCatalogue } from '../render/starCatalogue';
-import { buildStarField, depositStarLight, STAR_CELL_SIZE, type StarField } from '../render/starField';
+import { buildStarField, depositStarLight, type StarField } from '../render/starField';
 import { buildSkyMipMap } from '../render/skyMap';
 import { buildColourTable, COLOUR_TABLE_MAX_K, COLOUR_TABLE_MIN_K } from '../render/colourTable';
 import { engineBlackbodyLinearSrgb, engineTemperatureFromBv } from '../render/engine';
+import { buildStarTileIndex, type StarTileIndex } from './starTiles';
 
-/** Texture width used for every 1-D array laid out in 2-D, texels. */
-export const DATA_TEXTURE_WIDTH = 1024;
-/** Cells per axis of lib/render's star grid. */
-export const STAR_CELLS_PER_AXIS = Math.ceil(2 / STAR_CELL_SIZE) + 1;
 /** Diffuse map size, texels (lib/render/frame.ts STAR_LIGHT_MAP_*). */
 export const DIFFUSE_MAP_WIDTH = 1024;
 export const DIFFUSE_MAP_HEIGHT = 512;
@@ -27,27 +23,16 @@ export interface FloatImage {
   height: number;
   /** `channels` floats per texel, row-major */
   data: Float32Array;
-  channels: 1 | 4;
+  channels: 1 | 2 | 4;
 }
 
 /** Star textures. */
 export interface StarTextures {
   count: number;
-  /** (x, y, z, flux in mag-0 units) per star, hole frame */
-  positionFlux: FloatImage;
-  /** ln(T / 1 K) per star */
-  logTemperature: FloatImage;
-  /** cellStart of lib/render's StarField (stars of cell c are cellStart[c]..cellStart[c+1]) */
-  cellStart: FloatImage;
-  /** most stars in any z-run of three cells (bounds the shader's loop) */
-  maxRun: number;
+  /** the cube-map tile lists the shader's star loop reads (starTiles.ts) */
+  tiles: StarTileIndex;
   /** the field itself (for the CPU side) */
   field: StarField;
-}
-
-function layout1d(length: number, channels: 1 | 4): FloatImage {
-  const height = Math.max(1, Math.ceil(length / DATA_TEXTURE_WIDTH));
-  return { width: DATA_TEXTURE_WIDTH, height, channels, data: new Float32Array(DATA_TEXTURE_WIDTH * height * channels) };
 }
 
 /**
@@ -60,24 +45,7 @@ function layout1d(length: number, channels: 1 | 4): FloatImage {
 export function buildStarTextures(catalogue: StarCatalogue, magnitudeLimit: number): StarTextures {
   if (!Number.isFinite(magnitudeLimit)) throw new RangeError('magnitudeLimit: finite magnitude (-2..8.5)');
   const field = buildStarField(catalogue, magnitudeLimit, engineTemperatureFromBv);
-  const n = field.count;
-  const positionFlux = layout1d(Math.max(1, n), 4);
-  const logTemperature = layout1d(Math.max(1, n), 1);
-  for (let i = 0; i < n; i++) {
-    positionFlux.data.set([field.x[i], field.y[i], field.z[i], field.flux[i]], 4 * i);
-    logTemperature.data[i] = field.logTemperature[i];
-  }
-  const cellStart = layout1d(field.cellStart.length, 1);
-  cellStart.data.set(field.cellStart);
-  let maxRun = 0;
-  const c = STAR_CELLS_PER_AXIS;
-  for (let column = 0; column < c * c; column++) {
-    for (let z = 0; z + 2 < c; z++) {
-      const run = field.cellStart[column * c + z + 3] - field.cellStart[column * c + z];
-      if (run > maxRun) maxRun = run;
-    }
-  }
-  return { count: n, positionFlux, logTemperature, cellStart, maxRun, field };
+  return { count: field.count, tiles: buildStarTileIndex(field), field };
 }
 
 /** Diffuse sky map with mip levels (RGBA: Milky Way, star flux per sr, star flux x K per sr, 0). */

@@ -11,7 +11,9 @@ import type { FrameRequest } from '@/lib/render/schema';
 import { prepareGpuFrame, type GpuFrame, type GridUniforms } from '@/lib/webgl/gpuFrame';
 import { MAX_RAY_TABLE_SEGMENTS } from '@/lib/webgl/rayTableTexture';
 import { CELESTIAL_GRID } from '@/lib/webgl/sourceDirections';
+import { STAR_TILE_LEVELS } from '@/lib/webgl/starTiles';
 import { SKY_DIRECTIONS_FRAG, SKY_FULLSCREEN_VERT, SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
+import { directionsShaderDefines, lensedShaderDefines, shaderVariantKey, type ShaderDefines } from '@/lib/webgl/shaderVariant';
 import { MILKY_WAY_TEMPERATURE_K } from '@/lib/render/milkyWay';
 import { hexToLinear } from '@/lib/render/shade';
 import { colourTexture, dataTexture, diffuseTexture, RayTableTexture, starTextures, type StarGpuTextures } from './sky-textures';
@@ -39,8 +41,11 @@ export class GpuSkyRenderer {
   private readonly scene = new THREE.Scene();
   private readonly camera = new THREE.OrthographicCamera(-1, 1, 1, -1, 0, 1);
   private readonly mesh: THREE.Mesh;
-  private readonly lensed: THREE.RawShaderMaterial;
-  private readonly directions: THREE.RawShaderMaterial;
+  /** compiled programs by shader variant (lib/webgl/shaderVariant.ts) */
+  private readonly programs = new Map<string, THREE.RawShaderMaterial>();
+  /** the programs of the last prepared frame */
+  private lensed: THREE.RawShaderMaterial;
+  private directions: THREE.RawShaderMaterial;
   private readonly uniforms: Record<string, THREE.IUniform>;
   private readonly rayTable = new RayTableTexture();
   private readonly placeholder = dataTexture({ width: 1, height: 1, channels: 4, data: new Float32Array(4) });
@@ -53,7 +58,6 @@ export class GpuSkyRenderer {
     const segB = new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4);
     this.uniforms = {
       uFrameSizePx: { value: new THREE.Vector2(1, 1) },
-      uProjectionKind: { value: 0 },
       uFocalPx: { value: 1 },
       uRadPerPx: { value: 0 },
       uHalfApertureRad: { value: 0 },
@@ -61,34 +65,29 @@ export class GpuSkyRenderer {
       uViewToCamera: { value: new THREE.Matrix3() },
       uCameraToHole: { value: new THREE.Matrix3() },
       uBoostVelocity: { value: new THREE.Vector3() },
-      uLensing: { value: true },
       uEps: { value: 1 },
       uUr: { value: 0 },
-      uSegmentCount: { value: 1 },
       uSegHi: { value: new Float32Array(MAX_RAY_TABLE_SEGMENTS) },
       uSegA: { value: segA },
       uSegB: { value: segB },
       uRayTable: { value: this.rayTable.texture },
-      uSupersampling: { value: 1 },
       uColourShift: { value: true },
       uBeaming: { value: true },
       uExposureScale: { value: 1e-3 },
-      uToneMap: { value: 2 },
       uColourTable: { value: this.placeholder },
       uColourLogMinK: { value: 0 },
-      uColourLogSpan: { value: 1 },
-      uStarsEnabled: { value: false },
+      uColourEntries: { value: 2 },
+      uColourIndexPerLog: { value: 1 },
       uStarGain: { value: 1 },
       uPsfSigmaPx: { value: 0.8 },
       uSourceSizeRad: { value: 5 * ARCSEC_RAD },
-      uStarPosFlux: { value: this.placeholder },
-      uStarLogT: { value: this.placeholder },
-      uCellStart: { value: this.placeholder },
-      uMaxRun: { value: 0 },
-      uDiffuseEnabled: { value: false },
+      uStarTiles: { value: this.placeholder },
+      uStarTileEntries: { value: this.placeholder },
+      uStarTileEntryLogT: { value: this.placeholder },
+      uMaxTileList: { value: 0 },
+      uStarTileLevels: { value: new Float32Array(4 * STAR_TILE_LEVELS.length) },
       uDiffuse: { value: this.placeholder },
       uDiffuseTexelRad: { value: Math.PI / 512 },
-      uMilkyWayEnabled: { value: false },
       uMilkyWayGain: { value: 1 },
       uMilkyWayLogT: { value: Math.log(MILKY_WAY_TEMPERATURE_K) },
       uUniformBrightness: { value: 0 },
@@ -100,12 +99,31 @@ export class GpuSkyRenderer {
       uFarSideColour: { value: new THREE.Vector3() },
       uCelestialColour: { value: colourVec(hexToLinear(CELESTIAL_GRID.colour)) },
     };
-    const common = { uniforms: this.uniforms, vertexShader: SKY_FULLSCREEN_VERT, glslVersion: THREE.GLSL3, depthTest: false, depthWrite: false };
-    this.lensed = new THREE.RawShaderMaterial({ ...common, fragmentShader: SKY_LENSED_FRAG });
-    this.directions = new THREE.RawShaderMaterial({ ...common, fragmentShader: SKY_DIRECTIONS_FRAG });
+    // placeholders until the first prepare() picks the variants of its frame
+    this.lensed = this.program(SKY_LENSED_FRAG, {});
+    this.directions = this.program(SKY_DIRECTIONS_FRAG, {});
     this.mesh = new THREE.Mesh(new THREE.PlaneGeometry(2, 2), this.lensed);
     this.mesh.frustumCulled = false;
     this.scene.add(this.mesh);
+  }
+
+  /** The compiled program of a fragment shader with a set of switches (cached; three.js compiles on first use). */
+  private program(fragmentShader: string, defines: ShaderDefines): THREE.RawShaderMaterial {
+    const key = `${fragmentShader === SKY_LENSED_FRAG ? 'lensed' : 'directions'}|${shaderVariantKey(defines)}`;
+    let material = this.programs.get(key);
+    if (!material) {
+      material = new THREE.RawShaderMaterial({
+        uniforms: this.uniforms,
+        vertexShader: SKY_FULLSCREEN_VERT,
+        fragmentShader,
+        defines,
+        glslVersion: THREE.GLSL3,
+        depthTest: false,
+        depthWrite: false,
+      });
+      this.programs.set(key, material);
+    }
+    return material;
   }
 
   /** Hand over the sky data (stars, diffuse map, colour table); replaces earlier data. */
@@ -121,11 +139,14 @@ export class GpuSkyRenderer {
     const u = this.uniforms;
     u.uColourTable.value = this.sky.colour;
     u.uColourLogMinK.value = data.colour.logMinK;
-    u.uColourLogSpan.value = data.colour.logSpan;
-    u.uStarPosFlux.value = this.sky.stars?.positionFlux ?? this.placeholder;
-    u.uStarLogT.value = this.sky.stars?.logTemperature ?? this.placeholder;
-    u.uCellStart.value = this.sky.stars?.cellStart ?? this.placeholder;
-    u.uMaxRun.value = this.sky.stars?.maxRun ?? 0;
+    u.uColourEntries.value = data.colour.image.width;
+    u.uColourIndexPerLog.value = (data.colour.image.width - 1) / data.colour.logSpan;
+    u.uStarTiles.value = this.sky.stars?.tiles ?? this.placeholder;
+    u.uStarTileEntries.value = this.sky.stars?.tileEntries ?? this.placeholder;
+    u.uStarTileEntryLogT.value = this.sky.stars?.tileEntryLogT ?? this.placeholder;
+    u.uMaxTileList.value = this.sky.stars?.maxTileList ?? 0;
+    const levels = u.uStarTileLevels.value as Float32Array;
+    STAR_TILE_LEVELS.forEach((level, k) => levels.set([level.tilesPerEdge, level.marginChord, data.stars?.tiles.firstRow[k] ?? 0, 0], 4 * k));
     u.uDiffuse.value = this.sky.diffuse ?? this.placeholder;
     u.uDiffuseTexelRad.value = data.diffuse?.texelRad ?? Math.PI / 512;
     this.lastKey = '';
@@ -157,7 +178,6 @@ export class GpuSkyRenderer {
     const u = this.uniforms;
     const p = frame.projection;
     (u.uFrameSizePx.value as THREE.Vector2).set(frame.width, frame.height);
-    u.uProjectionKind.value = p.kind;
     u.uFocalPx.value = p.focalPx;
     u.uRadPerPx.value = p.radPerPx;
     u.uHalfApertureRad.value = p.halfApertureRad;
@@ -165,11 +185,9 @@ export class GpuSkyRenderer {
     u.uViewToCamera.value = mat3(frame.viewToCamera);
     u.uCameraToHole.value = mat3(frame.cameraToHole);
     (u.uBoostVelocity.value as THREE.Vector3).set(frame.boostVelocity[0], frame.boostVelocity[1], frame.boostVelocity[2]);
-    u.uLensing.value = frame.lensing;
     if (frame.table) {
       u.uEps.value = frame.table.eps;
       u.uUr.value = frame.table.ur;
-      u.uSegmentCount.value = frame.table.segmentCount;
       (u.uSegHi.value as Float32Array).set(frame.table.segmentHi);
       (u.uSegA.value as Float32Array).set(frame.table.segmentA);
       (u.uSegB.value as Float32Array).set(frame.table.segmentB);
@@ -178,18 +196,13 @@ export class GpuSkyRenderer {
         u.uRayTable.value = this.rayTable.texture;
       }
     }
-    u.uSupersampling.value = frame.supersampling;
     u.uColourShift.value = frame.colourShift;
     u.uBeaming.value = frame.beaming;
     u.uExposureScale.value = frame.exposureScale;
-    u.uToneMap.value = frame.toneMap;
     const stars = req.sky.stars;
-    u.uStarsEnabled.value = stars.enabled && !!this.sky?.stars;
     u.uStarGain.value = stars.gain;
     u.uPsfSigmaPx.value = stars.psfSigmaPx;
     u.uSourceSizeRad.value = stars.sourceSizeArcsec * ARCSEC_RAD;
-    u.uDiffuseEnabled.value = !!this.sky?.diffuse;
-    u.uMilkyWayEnabled.value = req.sky.milkyWay.enabled && !!this.sky?.data.hasMilkyWay;
     u.uMilkyWayGain.value = req.sky.milkyWay.gain;
     u.uUniformBrightness.value = req.sky.uniform?.brightness ?? 0;
     u.uUniformTemperatureK.value = req.sky.uniform?.temperatureK ?? 6500;
@@ -198,6 +211,17 @@ export class GpuSkyRenderer {
     u.uHorizonColour.value = colourVec(frame.horizonGrid.colour);
     u.uFarSideColour.value = colourVec(frame.farSideGrid.colour);
     u.uCelestialGrid.value = new THREE.Vector4(mode === 'sources' ? 1 : 0, (CELESTIAL_GRID.spacingDeg * Math.PI) / 180, CELESTIAL_GRID.lineWidthPx, 0);
+    this.lensed = this.program(
+      SKY_LENSED_FRAG,
+      lensedShaderDefines(frame, {
+        sourcesMode: mode === 'sources',
+        stars: stars.enabled && !!this.sky?.stars,
+        diffuse: !!this.sky?.diffuse,
+        milkyWay: req.sky.milkyWay.enabled && !!this.sky?.data.hasMilkyWay,
+        uniformBrightness: req.sky.uniform?.brightness ?? 0,
+      }),
+    );
+    this.directions = this.program(SKY_DIRECTIONS_FRAG, directionsShaderDefines(frame));
   }
 
   /** Draw the picture to the canvas (or a render target). */
@@ -251,9 +275,9 @@ export class GpuSkyRenderer {
     this.sky.colour.dispose();
     this.sky.diffuse?.dispose();
     if (this.sky.stars) {
-      this.sky.stars.positionFlux.dispose();
-      this.sky.stars.logTemperature.dispose();
-      this.sky.stars.cellStart.dispose();
+      this.sky.stars.tiles.dispose();
+      this.sky.stars.tileEntries.dispose();
+      this.sky.stars.tileEntryLogT.dispose();
     }
     this.sky = null;
   }
@@ -263,8 +287,8 @@ export class GpuSkyRenderer {
     this.disposeSky();
     this.rayTable.dispose();
     this.placeholder.dispose();
-    this.lensed.dispose();
-    this.directions.dispose();
+    for (const material of this.programs.values()) material.dispose();
+    this.programs.clear();
     this.mesh.geometry.dispose();
   }
 }

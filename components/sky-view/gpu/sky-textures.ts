@@ -8,7 +8,7 @@ import { RAY_TABLE_TEXTURE_WIDTH, type PackedRayTable } from '@/lib/webgl/rayTab
 
 /** A nearest-filtered float texture holding a 1-D array laid out in rows. */
 export function dataTexture(image: FloatImage): THREE.DataTexture {
-  const format = image.channels === 1 ? THREE.RedFormat : THREE.RGBAFormat;
+  const format = image.channels === 1 ? THREE.RedFormat : image.channels === 2 ? THREE.RGFormat : THREE.RGBAFormat;
   const tex = new THREE.DataTexture(image.data, image.width, image.height, format, THREE.FloatType);
   tex.minFilter = THREE.NearestFilter;
   tex.magFilter = THREE.NearestFilter;
@@ -75,20 +75,24 @@ export class RayTableTexture {
   }
 }
 
-/** GPU copies of the star data. */
+/** GPU copies of the star data: the tile lists of lib/webgl/starTiles.ts. */
 export interface StarGpuTextures {
-  positionFlux: THREE.DataTexture;
-  logTemperature: THREE.DataTexture;
-  cellStart: THREE.DataTexture;
-  maxRun: number;
+  /** per-tile (first entry, count) */
+  tiles: THREE.DataTexture;
+  /** per entry: unit vector and flux */
+  tileEntries: THREE.DataTexture;
+  /** per entry: ln T */
+  tileEntryLogT: THREE.DataTexture;
+  /** longest list */
+  maxTileList: number;
 }
 
 /** Upload star textures. */
 export function starTextures(stars: StarTextures): StarGpuTextures {
   return {
-    positionFlux: dataTexture(stars.positionFlux),
-    logTemperature: dataTexture(stars.logTemperature),
-    cellStart: dataTexture(stars.cellStart),
-    maxRun: stars.maxRun,
+    tiles: dataTexture(stars.tiles.tiles),
+    tileEntries: dataTexture(stars.tiles.entries),
+    tileEntryLogT: dataTexture(stars.tiles.entryLogT),
+    maxTileList: stars.tiles.maxListLength,
   };
 }

@@ -88,3 +88,25 @@ describe('lookupPackedRayTable', () => {
     expect(() => lookupPackedRayTable(table, 4, rec())).toThrow(RangeError);
   });
 });
+
+describe('packRayTable', () => {
+  it('should give each segment an upper bound so that the bounds below psi count up to the segment of lib/relativity layout holding psi', () => {
+    for (const [r, energy] of [[7, null], [2.4, 1], [1, 1]] as const) {
+      const arrays = buildRayTableForRadialObserver(r, energy).toArrays();
+      const table = packRayTable(arrays);
+      const L = arrays.layout;
+      const count = L[3];
+      for (let psi = 0.001; psi < Math.PI; psi += 0.0173) {
+        const p = Math.fround(psi);
+        let below = 0;
+        for (const hi of table.segmentHi) if (p > hi) below++;
+        // layout record k (lib/relativity/rayTable.ts toArrays): map, psiLo, psiHi, ...; the first segment with psi <= psiHi
+        let expected = 0;
+        while (expected < count - 1 && p > Math.fround(L[6 + 9 * expected + 2])) expected++;
+        expect(below, `r = ${r}, psi = ${psi}`).toBe(expected);
+      }
+      // the last segment in use and the unused slots never count
+      for (let k = count - 1; k < table.segmentHi.length; k++) expect(table.segmentHi[k]).toBeGreaterThan(Math.PI);
+    }
+  });
+});

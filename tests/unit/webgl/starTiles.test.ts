@@ -1,0 +1,124 @@
+import { describe, expect, it } from 'vitest';
+import { buildStarField, STAR_CELL_SIZE } from '@/lib/render/starField';
+import type { StarCatalogue } from '@/lib/render/starCatalogue';
+import { engineTemperatureFromBv } from '@/lib/render/engine';
+import { buildStarTileIndex, STAR_TILE_LEVELS, starTileOf, type StarTile } from '@/lib/webgl/starTiles';
+import { SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
+import { expectClose } from './close';
+
+/** A small deterministic catalogue scattered over the sphere (uniform in sin(dec)), with a dense patch. */
+function syntheticCatalogue(count: number): StarCatalogue {
+  let seed = 12345;
+  const random = () => {
+    // Park & Miller 1988 minimal standard generator
+    seed = (seed * 16807) % 2147483647;
+    return seed / 2147483647;
+  };
+  const cat: StarCatalogue = {
+    count,
+    hip: new Int32Array(count),
+    raDeg: new Float32Array(count),
+    decDeg: new Float32Array(count),
+    mag: new Float32Array(count),
+    bv: new Float32Array(count),
+  };
+  for (let i = 0; i < count; i++) {
+    const dense = i % 5 === 0;
+    cat.raDeg[i] = dense ? 40 + 2 * random() : 360 * random();
+    cat.decDeg[i] = dense ? 44 + 2 * random() : (Math.asin(2 * random() - 1) * 180) / Math.PI;
+    cat.mag[i] = -1 + 9 * random();
+    cat.bv[i] = -0.3 + 2 * random();
+  }
+  return cat;
+}
+
+const field = buildStarField(syntheticCatalogue(4000), 8.5, engineTemperatureFromBv);
+const index = buildStarTileIndex(field);
+
+/** The list of the tile of level k holding direction d. */
+function listOf(k: number, d: readonly number[]): { first: number; count: number } {
+  const level = STAR_TILE_LEVELS[k];
+  const t = starTileOf(d[0], d[1], d[2], level.tilesPerEdge, { face: 0, column: 0, row: 0 });
+  const texel = (index.firstRow[k] + t.row) * index.tiles.width + t.face * level.tilesPerEdge + t.column;
+  return { first: index.tiles.data[2 * texel], count: index.tiles.data[2 * texel + 1] };
+}
+
+describe('starTileOf', () => {
+  it('should put each axis direction at the centre of its own cube face (common practice: cube-map faces by the largest component)', () => {
+    const out: StarTile = { face: -1, column: -1, row: -1 };
+    const axes = [[1, 0, 0], [-1, 0, 0], [0, 1, 0], [0, -1, 0], [0, 0, 1], [0, 0, -1]];
+    axes.forEach((a, face) => {
+      starTileOf(a[0], a[1], a[2], 256, out);
+      expect(out.face).toBe(face);
+      expect(out.column).toBe(128);
+      expect(out.row).toBe(128);
+    });
+  });
+
+  it('should reject a zero vector and a bad tile count', () => {
+    const out: StarTile = { face: 0, column: 0, row: 0 };
+    expect(() => starTileOf(0, 0, 0, 256, out)).toThrow(RangeError);
+    expect(() => starTileOf(1, 0, 0, 0, out)).toThrow(RangeError);
+  });
+});
+
+describe('buildStarTileIndex', () => {
+  it('should list, for any direction, every star that lib/render star loop sums at any reach up to the level margin', () => {
+    // lib/render/shade.ts sums every star with |star - d| < 3 sigma; brute force over all stars is the reference
+    const stars = field.count;
+    let checked = 0;
+    let random = 7;
+    const next = () => {
+      random = (random * 16807) % 2147483647;
+      return random / 2147483647;
+    };
+    for (let trial = 0; trial < 3000; trial++) {
+      // half the trials right next to a star (where kernels are summed), half anywhere
+      let d: number[];
+      if (trial % 2 === 0) {
+        const s = Math.floor(next() * stars);
+        d = [field.x[s] + 0.01 * (next() - 0.5), field.y[s] + 0.01 * (next() - 0.5), field.z[s] + 0.01 * (next() - 0.5)];
+      } else {
+        d = [next() - 0.5, next() - 0.5, next() - 0.5];
+      }
+      const len = Math.hypot(d[0], d[1], d[2]);
+      d = d.map((c) => c / len);
+      STAR_TILE_LEVELS.forEach((level, k) => {
+        const { first, count } = listOf(k, d);
+        const listed = new Set<string>();
+        for (let e = first; e < first + count; e++) listed.add(`${index.entries.data[4 * e]},${index.entries.data[4 * e + 1]},${index.entries.data[4 * e + 2]}`);
+        for (let s = 0; s < stars; s++) {
+          const dist = Math.hypot(field.x[s] - d[0], field.y[s] - d[1], field.z[s] - d[2]);
+          if (dist >= level.marginChord) continue;
+          checked++;
+          const key = `${Math.fround(field.x[s])},${Math.fround(field.y[s])},${Math.fround(field.z[s])}`;
+          expect(listed.has(key), `level ${k}, star ${s} at chord ${dist}`).toBe(true);
+        }
+      });
+    }
+    expect(checked).toBeGreaterThan(1000);
+  });
+
+  it('should end with a level whose margin is the widest reach summed star by star (3 sigma_max = STAR_CELL_SIZE, lib/render/shade.ts)', () => {
+    expectClose(STAR_TILE_LEVELS[STAR_TILE_LEVELS.length - 1].marginChord, STAR_CELL_SIZE, 1e-15);
+    for (let k = 1; k < STAR_TILE_LEVELS.length; k++) expect(STAR_TILE_LEVELS[k].marginChord).toBeGreaterThan(STAR_TILE_LEVELS[k - 1].marginChord);
+  });
+
+  it('should have as many levels as the shader reads (shaders/sky.lensed.frag uStarTileLevels; common practice: one source of truth checked)', () => {
+    expect(SKY_LENSED_FRAG).toContain(`uniform vec4 uStarTileLevels[${STAR_TILE_LEVELS.length}];`);
+    expect(index.firstRow.length).toBe(STAR_TILE_LEVELS.length);
+  });
+
+  it('should carry each listed star flux and log temperature from lib/render buildStarField', () => {
+    const byPosition = new Map<string, number>();
+    for (let s = 0; s < field.count; s++) byPosition.set(`${Math.fround(field.x[s])},${Math.fround(field.y[s])},${Math.fround(field.z[s])}`, s);
+    for (let e = 0; e < index.entryCount; e += 97) {
+      const s = byPosition.get(`${index.entries.data[4 * e]},${index.entries.data[4 * e + 1]},${index.entries.data[4 * e + 2]}`);
+      expect(s).toBeDefined();
+      // float32 storage: relative rounding 6e-8
+      expectClose(index.entries.data[4 * e + 3], field.flux[s!], 1e-7 * field.flux[s!]);
+      expectClose(index.entryLogT.data[e], field.logTemperature[s!], 1e-6);
+    }
+    expect(index.maxListLength).toBeGreaterThan(0);
+  });
+});
