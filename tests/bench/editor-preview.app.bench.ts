@@ -18,8 +18,23 @@ const BASE_URL = process.env.SKYWELL_BASE_URL;
 const STUDIO = 'saltmarsh-dome';
 const PASSWORD = process.env.SKYWELL_DEMO_PASSWORD ?? 'skywell-demo-2026';
 const WINDOW_MS = 6000;
-/** SKYWELL_BENCH_PROFILE=1 also prints where the page's main thread spent the played window. */
+/** SKYWELL_BENCH_PROFILE=1 also prints where the page's main thread spent the played window; =trace, the busiest trace events of every thread. */
 const PROFILE = process.env.SKYWELL_BENCH_PROFILE === '1';
+const TRACE = process.env.SKYWELL_BENCH_PROFILE === 'trace';
+
+/** Total duration per (thread, event name) of complete trace events, top 25. */
+function printTrace(label: string, trace: { traceEvents: { name: string; ph: string; dur?: number; pid: number; tid: number; args?: { name?: string } }[] }): void {
+  const threadNames = new Map<string, string>();
+  for (const e of trace.traceEvents) if (e.ph === 'M' && e.name === 'thread_name') threadNames.set(`${e.pid}:${e.tid}`, e.args?.name ?? '?');
+  const totals = new Map<string, number>();
+  for (const e of trace.traceEvents) {
+    if (e.ph !== 'X' || !e.dur) continue;
+    const key = `${threadNames.get(`${e.pid}:${e.tid}`) ?? e.tid} / ${e.name}`;
+    totals.set(key, (totals.get(key) ?? 0) + e.dur / 1000);
+  }
+  const top = [...totals].sort((a, b) => b[1] - a[1]).slice(0, 25).map(([k, v]) => `  ${v.toFixed(0).padStart(6)} ms  ${k}`).join('\n');
+  console.log(`trace of "${label}" (total duration per thread and event, nested events counted in their parents too):\n${top}`);
+}
 
 interface CpuProfile {
   nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; children?: number[] }[];
@@ -90,6 +105,7 @@ async function playScene(page: Page, sceneName: string, expectedPath: 'webgl' | 
     await profiler.send('Profiler.enable');
     await profiler.send('Profiler.start');
   }
+  if (TRACE) await page.context().browser()!.startTracing(page, { categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'gpu', 'cc', 'viz'] });
   await page.getByTestId('play').click();
   // until the window closes or the shot ends (Play shows again)
   const deadline = Date.now() + WINDOW_MS;
@@ -97,6 +113,7 @@ async function playScene(page: Page, sceneName: string, expectedPath: 'webgl' | 
   const after = await page.evaluate(() => ({ frames: window.__skywellFramesShown ?? 0, at: performance.now() }));
   if ((await page.getByTestId('play').getAttribute('aria-label')) === 'Pause') await page.getByTestId('play').click();
   if (profiler) printProfile(sceneName, (await profiler.send('Profiler.stop')).profile);
+  if (TRACE) printTrace(sceneName, JSON.parse((await page.context().browser()!.stopTracing()).toString()));
   const seconds = (after.at - before.at) / 1000;
   const path = (await preview.getAttribute('data-path')) ?? '?';
   return { fps: (after.frames - before.frames) / seconds, size, path, seconds };

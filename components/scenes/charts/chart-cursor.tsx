@@ -24,21 +24,28 @@ export function logFraction(v: number, lo: number, hi: number): number {
  * The current moment drawn over a chart as an overlay: a vertical line at
  * fraction x of the plot's width and, when y is given, a dot at fraction y of
  * its height (from the bottom). The chart underneath does not re-render when
- * the moment moves, which keeps scrubbing and playback smooth.
+ * the moment moves, and the marks move by transform on their own compositing
+ * layers, so a scrub or playback repaints none of the chart (repainting the
+ * charts' SVG every frame cost more than the lensed preview itself).
  */
 export function ChartCursor({ insets, x, y, line = true }: { insets: PlotInsets; x: number | 'inherit'; y?: number | null; line?: boolean }) {
   // 'inherit': the fraction comes from the --chart-cursor-x CSS variable of an ancestor, so a memoized chart
   // group can show a moving cursor without re-rendering
   const fraction = x === 'inherit' ? 'var(--chart-cursor-x, 0)' : String(x);
-  const left = `calc(${insets.left}px + (100% - ${insets.left + insets.right}px) * ${fraction})`;
+  // each mark sits in a box the size of the plot area; translating the box by a fraction of its own size
+  // moves the mark by that fraction of the plot
+  const plot = { left: insets.left, right: insets.right, top: insets.top, bottom: insets.bottom };
   return (
-    <div className="pointer-events-none absolute inset-0" aria-hidden="true" data-testid="chart-cursor">
-      {line ? <div className="absolute w-[1.5px]" style={{ left, top: insets.top, bottom: insets.bottom, background: CURSOR }} /> : null}
+    <div className="pointer-events-none absolute inset-0 overflow-hidden" aria-hidden="true" data-testid="chart-cursor">
+      {line ? (
+        <div className="absolute" style={{ ...plot, transform: `translateX(calc(${fraction} * 100%))`, willChange: 'transform' }}>
+          <div className="absolute inset-y-0 left-0 w-[1.5px] -translate-x-1/2" style={{ background: CURSOR }} />
+        </div>
+      ) : null}
       {y !== undefined && y !== null ? (
-        <div
-          className="absolute h-2.5 w-2.5 -translate-x-1/2 translate-y-1/2 rounded-full border border-[#05070c]"
-          style={{ left, bottom: `calc(${insets.bottom}px + (100% - ${insets.top + insets.bottom}px) * ${y})`, background: CURSOR }}
-        />
+        <div className="absolute" style={{ ...plot, transform: `translate(calc(${fraction} * 100%), calc(${-y} * 100%))`, willChange: 'transform' }}>
+          <div className="absolute bottom-0 left-0 h-2.5 w-2.5 -translate-x-1/2 translate-y-1/2 rounded-full border border-[#05070c]" style={{ background: CURSOR }} />
+        </div>
       ) : null}
     </div>
   );

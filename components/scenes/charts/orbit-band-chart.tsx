@@ -23,7 +23,7 @@ export function OrbitBandChart({ points, screenTime, radiusRs, onPick }: { point
   return (
     <figure className="space-y-1" data-testid="orbit-band-chart">
       <figcaption className="text-xs font-medium text-slate-300">Where the camera is: radius against screen time, over the orbit bands</figcaption>
-      <div className="relative h-56">
+      <div className="relative h-56 [contain:strict]">
         <OrbitBandPlot points={points} onPick={onPick} />
         <ChartCursor insets={{ left: 44, right: 12, top: 6, bottom: 34 }} x={linearFraction(screenTime, start, end)} y={radiusRs !== null ? logFraction(Math.max(radiusRs, lo), lo, hi) : null} />
       </div>

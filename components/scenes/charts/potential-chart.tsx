@@ -25,7 +25,7 @@ export function PotentialChart({ radiusM, energy, angularMomentum, maxRadiusM, h
       <figcaption className="text-xs font-medium text-slate-300">
         Effective potential for this moment&apos;s angular momentum ({angularMomentum.toFixed(2)} GM/c){hovering ? '; rockets hold the camera off the curve' : ''}
       </figcaption>
-      <div className="relative h-48">
+      <div className="relative h-48 [contain:strict]">
         <PotentialPlot hiRs={hiRs} angularMomentum={angularMomentum} e2={e2} />
         <ChartCursor insets={{ left: 44, right: 12, top: 6, bottom: 34 }} line={false} x={logFraction(Math.max(radiusM / 2, LO_RS), LO_RS, hiRs)} y={linearFraction(Math.min(Math.max(e2, yLo), yHi), yLo, yHi)} />
       </div>

@@ -17,7 +17,7 @@ function SmallChart({ title, testId, children, note }: { title: string; testId: 
   return (
     <figure className="space-y-1" data-testid={testId}>
       <figcaption className="text-xs font-medium text-slate-300">{title}</figcaption>
-      <div className="relative h-36">
+      <div className="relative h-36 [contain:strict]">
         {children}
         <ChartCursor insets={SMALL_CHART_INSETS} x="inherit" />
       </div>
