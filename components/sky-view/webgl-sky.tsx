@@ -12,6 +12,12 @@ import { buildGpuSkyData, type GpuSkyData } from './gpu/sky-data';
 import { loadSkyAssets } from './sky-assets';
 import { countFrameShown, publishDebugHandle, toBase64 } from './debug-handle';
 
+/** Sky data already built, by asset base and magnitude limit (a few, since each holds ~50 MB of textures). */
+const skyDataCache = new Map<string, GpuSkyData>();
+const SKY_DATA_CACHE_SIZE = 3;
+/** How long a changed magnitude limit must rest before its sky data is built, ms. */
+const LIMIT_REST_MS = 300;
+
 interface WebGlSkyProps {
   request: FrameRequest;
   mode: SkyViewMode;
@@ -55,18 +61,38 @@ function SkyPass({ request, mode, sky, onFrame }: { request: FrameRequest; mode:
 export function WebGlSky({ request, mode, assetBase, onFailure, onFrame }: WebGlSkyProps) {
   const [sky, setSky] = useState<GpuSkyData | null>(null);
   const limit = request.sky.stars.magnitudeLimit;
+  const hasSky = sky !== null;
   useEffect(() => {
     let live = true;
-    loadSkyAssets(assetBase).then(
-      (assets) => live && setSky(buildGpuSkyData(assets.catalogue, assets.milkyWay, limit)),
-      (error: unknown) => live && onFailure(`sky data could not be loaded (${error instanceof Error ? error.message : String(error)})`),
+    const key = `${assetBase}|${limit}`;
+    const cached = skyDataCache.get(key);
+    if (cached) {
+      setSky(cached);
+      return;
+    }
+    // Building the star tiles takes ~1 s on this thread: while a magnitude limit is being typed, wait
+    // until it rests (the old sky stays on screen, marked not ready).
+    const timer = setTimeout(
+      () =>
+        loadSkyAssets(assetBase).then(
+          (assets) => {
+            if (!live) return;
+            const built = buildGpuSkyData(assets.catalogue, assets.milkyWay, limit);
+            if (skyDataCache.size >= SKY_DATA_CACHE_SIZE) skyDataCache.delete(skyDataCache.keys().next().value!);
+            skyDataCache.set(key, built);
+            setSky(built);
+          },
+          (error: unknown) => live && onFailure(`sky data could not be loaded (${error instanceof Error ? error.message : String(error)})`),
+        ),
+      hasSky ? LIMIT_REST_MS : 0,
     );
     return () => {
       live = false;
+      clearTimeout(timer);
     };
-  }, [assetBase, limit, onFailure]);
+  }, [assetBase, limit, onFailure, hasSky]);
   return (
-    <div style={{ width: request.width, height: request.height }} data-testid="sky-view-webgl" data-ready={sky ? 'true' : 'false'}>
+    <div style={{ width: request.width, height: request.height }} data-testid="sky-view-webgl" data-ready={sky && sky.magnitudeLimit === limit ? 'true' : 'false'}>
       {sky ? (
         <Canvas
           frameloop="demand"
