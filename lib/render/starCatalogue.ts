@@ -48,7 +48,7 @@ export function catalogueFromGeoJson(geojson: unknown): StarCatalogue {
     const mag = Number(f.properties?.mag);
     if (c && Number.isFinite(c[0]) && Number.isFinite(c[1]) && Number.isFinite(mag)) keep.push(f);
   }
-  const cat = allocate(keep.length);
+  const cat = allocateCatalogue(keep.length);
   keep.forEach((f, i) => {
     const [lon, lat] = f.geometry!.coordinates!;
     cat.hip[i] = Number(f.id) | 0;
@@ -62,7 +62,12 @@ export function catalogueFromGeoJson(geojson: unknown): StarCatalogue {
   return cat;
 }
 
-function allocate(count: number): StarCatalogue {
+/**
+ * An empty catalogue of `count` stars (all fields zero), to be filled.
+ * @param count number of stars (integer >= 0)
+ */
+export function allocateCatalogue(count: number): StarCatalogue {
+  if (!Number.isInteger(count) || count < 0) throw new RangeError('count: an integer >= 0');
   return {
     count,
     hip: new Int32Array(count),
@@ -106,7 +111,7 @@ export function decodeCatalogue(bytes: Uint8Array): StarCatalogue {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const n = view.getUint32(8, true);
   if (bytes.length !== HEADER_BYTES + n * 20) throw new RangeError('bytes: length does not match the star count');
-  const cat = allocate(n);
+  const cat = allocateCatalogue(n);
   let off = HEADER_BYTES;
   for (let i = 0; i < n; i++, off += 4) cat.hip[i] = view.getInt32(off, true);
   for (const arr of [cat.raDeg, cat.decDeg, cat.mag, cat.bv]) {

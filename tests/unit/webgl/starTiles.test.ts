@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildStarField, STAR_CELL_SIZE } from '@/lib/render/starField';
-import type { StarCatalogue } from '@/lib/render/starCatalogue';
+import { allocateCatalogue, type StarCatalogue } from '@/lib/render/starCatalogue';
 import { engineTemperatureFromBv } from '@/lib/render/engine';
 import { buildStarTileIndex, STAR_TILE_LEVELS, starTileOf, type StarTile } from '@/lib/webgl/starTiles';
 import { SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
@@ -14,14 +14,7 @@ function syntheticCatalogue(count: number): StarCatalogue {
     seed = (seed * 16807) % 2147483647;
     return seed / 2147483647;
   };
-  const cat: StarCatalogue = {
-    count,
-    hip: new Int32Array(count),
-    raDeg: new Float32Array(count),
-    decDeg: new Float32Array(count),
-    mag: new Float32Array(count),
-    bv: new Float32Array(count),
-  };
+  const cat: StarCatalogue = allocateCatalogue(count);
   for (let i = 0; i < count; i++) {
     const dense = i % 5 === 0;
     cat.raDeg[i] = dense ? 40 + 2 * random() : 360 * random();
