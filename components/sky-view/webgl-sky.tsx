@@ -8,8 +8,8 @@ import { useEffect, useMemo, useState } from 'react';
 import { Canvas, useFrame, useThree } from '@react-three/fiber';
 import type { FrameRequest } from '@/lib/render/schema';
 import { GpuSkyRenderer, type SkyViewMode } from './gpu/gpu-sky-renderer';
-import { buildGpuSkyData, type GpuSkyData } from './gpu/sky-data';
-import { loadSkyAssets } from './sky-assets';
+import type { GpuSkyData } from './gpu/sky-data';
+import { loadGpuSkyData } from './gpu/sky-data-client';
 import { countFrameShown, publishDebugHandle, toBase64 } from './debug-handle';
 
 /** Sky data already built, by asset base and magnitude limit (a few, since each holds ~50 MB of textures). */
@@ -70,14 +70,13 @@ export function WebGlSky({ request, mode, assetBase, onFailure, onFrame }: WebGl
       setSky(cached);
       return;
     }
-    // Building the star tiles takes ~1 s on this thread: while a magnitude limit is being typed, wait
-    // until it rests (the old sky stays on screen, marked not ready).
+    // The star tiles take ~1 s to build (in a worker): while a magnitude limit is being typed, wait until
+    // it rests (the old sky stays on screen, marked not ready).
     const timer = setTimeout(
       () =>
-        loadSkyAssets(assetBase).then(
-          (assets) => {
+        loadGpuSkyData(assetBase, limit).then(
+          (built) => {
             if (!live) return;
-            const built = buildGpuSkyData(assets.catalogue, assets.milkyWay, limit);
             if (skyDataCache.size >= SKY_DATA_CACHE_SIZE) skyDataCache.delete(skyDataCache.keys().next().value!);
             skyDataCache.set(key, built);
             setSky(built);

@@ -124,10 +124,10 @@ test.describe('renders', () => {
     await signInAs(page, 'operator');
     await expect(page.getByTestId('nav-renders')).toHaveCount(0);
     await page.goto(`/studios/${DEMO_STUDIO_SLUG}/renders`);
-    await expect(page.getByTestId('forbidden')).toBeVisible();
+    await expect(page.getByRole('main').getByTestId('forbidden')).toBeVisible();
     await expect(page.getByTestId('new-render')).toHaveCount(0);
     await page.goto(`/studios/${DEMO_STUDIO_SLUG}/renders/new`);
-    await expect(page.getByTestId('forbidden')).toBeVisible();
+    await expect(page.getByRole('main').getByTestId('forbidden')).toBeVisible();
     await expect(page.getByTestId('new-render-form')).toHaveCount(0);
 
     // A well-formed request, so the answer is about the role, not the body (route order: schema, session, role).

@@ -51,7 +51,7 @@ test.describe('sign-in', () => {
     await signIn.signIn(demoEmail('producer'), DEMO_PASSWORD);
     await expect(page.getByTestId('studio-name')).toBeVisible();
     await page.goto(`/studios/${DEMO_STUDIO_SLUG}/studio`);
-    await expect(page.getByTestId('forbidden')).toBeVisible();
+    await expect(page.getByRole('main').getByTestId('forbidden')).toBeVisible();
     await page.goto('/studios/not-my-studio');
     await expect(page.getByTestId('not-found')).toBeVisible();
   });

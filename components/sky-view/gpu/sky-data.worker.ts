@@ -1,0 +1,20 @@
+/**
+ * Builds the GPU sky data (star tile lists, diffuse map, colour table) off the
+ * page's main thread: the star tiles alone take ~1 s, which would freeze typing.
+ * Request: { id, base (absolute sky-assets URL), limit (magnitude) };
+ * reply: { id, data } with the typed arrays transferred, or { id, error }.
+ */
+import { buildGpuSkyData } from './sky-data';
+import { loadSkyAssets } from '../sky-assets';
+import { transferablesOf } from './transferables';
+
+self.onmessage = async (event: MessageEvent<{ id: number; base: string; limit: number }>) => {
+  const { id, base, limit } = event.data;
+  try {
+    const assets = await loadSkyAssets(base);
+    const data = buildGpuSkyData(assets.catalogue, assets.milkyWay, limit);
+    (self as unknown as Worker).postMessage({ id, data }, transferablesOf(data));
+  } catch (error) {
+    (self as unknown as Worker).postMessage({ id, error: error instanceof Error ? error.message : String(error) });
+  }
+};
