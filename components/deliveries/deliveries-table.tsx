@@ -3,7 +3,8 @@
 import Link from 'next/link';
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '@/components/ui/data-table';
 import { apiFetch } from '@/lib/api/client';
 import { Alert } from '@/components/ui/alert';
 import { formatWhen } from '@/components/renders/format';
@@ -40,20 +41,7 @@ export function DeliveriesTable({ studio }: { studio: string }) {
   if (deliveries.data.deliveries.length === 0) return <p className="text-sm text-slate-400" data-testid="deliveries-empty">No deliveries yet. A finished frame sequence becomes a delivery once its photosensitivity check is done.</p>;
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm" data-testid="deliveries-table">
-        <thead className="text-slate-400">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>{group.headers.map((h) => <th key={h.id} className="border-b border-ink-700 py-2 pr-4 font-medium">{flexRender(h.column.columnDef.header, h.getContext())}</th>)}</tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-ink-700/60" data-testid={`delivery-row-${row.original.id}`}>
-              {row.getVisibleCells().map((cell) => <td key={cell.id} className="py-2.5 pr-4">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable table={table} testId="deliveries-table" rowTestId={(d) => `delivery-row-${d.id}`} />
     </div>
   );
 }

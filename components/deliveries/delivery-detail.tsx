@@ -3,7 +3,8 @@
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '@/components/ui/data-table';
 import { apiFetch } from '@/lib/api/client';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -40,20 +41,7 @@ function FramesTable({ frames }: { frames: ManifestFrame[] }) {
   return (
     <div className="space-y-3">
       <div className="overflow-x-auto">
-        <table className="w-full text-left text-sm" data-testid="manifest-frames">
-          <thead className="text-xs text-slate-400">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>{group.headers.map((h) => <th key={h.id} className="whitespace-nowrap border-b border-ink-700 py-2 pr-4 font-medium">{flexRender(h.column.columnDef.header, h.getContext())}</th>)}</tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-b border-ink-700/60" data-testid={`manifest-frame-${row.original.index}`}>
-                {row.getVisibleCells().map((cell) => <td key={cell.id} className="py-1.5 pr-4 align-top">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DataTable table={table} testId="manifest-frames" rowTestId={(f) => `manifest-frame-${f.index}`} compact />
       </div>
       {!all && frames.length > ROWS_SHOWN ? <Button variant="secondary" onClick={() => setAll(true)}>Show all {frames.length} frames</Button> : null}
     </div>

@@ -2,7 +2,8 @@
 
 import Link from 'next/link';
 import { useMemo } from 'react';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '@/components/ui/data-table';
 import { Alert } from '@/components/ui/alert';
 import { formatLabel, formatWhen } from './format';
 import { RenderProgress, RenderStatusBadge } from './render-status';
@@ -65,20 +66,7 @@ export function RendersTable({ studio }: { studio: string }) {
   if (renders.data.renders.length === 0) return <p className="text-sm text-slate-400" data-testid="renders-empty">No renders yet. Request a still or a frame sequence of a scene revision.</p>;
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm" data-testid="renders-table">
-        <thead className="text-slate-400">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>{group.headers.map((h) => <th key={h.id} className="border-b border-ink-700 py-2 pr-4 font-medium">{flexRender(h.column.columnDef.header, h.getContext())}</th>)}</tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-ink-700/60 align-middle" data-testid={`render-row-${row.original.id}`}>
-              {row.getVisibleCells().map((cell) => <td key={cell.id} className="py-2.5 pr-4">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable table={table} testId="renders-table" rowTestId={(r) => `render-row-${r.id}`} rowClassName="align-middle" />
     </div>
   );
 }

@@ -1,7 +1,8 @@
 'use client';
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { DataTable } from '@/components/ui/data-table';
 import { useMemo, useState } from 'react';
 import { ROLES, ROLE_LABELS, type Role } from '@/lib/auth/roles';
 import { apiFetch } from '@/lib/api/client';
@@ -72,20 +73,7 @@ export function MembersTable({ studio, selfEmail }: { studio: string; selfEmail:
   return (
     <div className="space-y-3">
       {error ? <Alert tone="error" testId="members-error">{error}</Alert> : null}
-      <table className="w-full text-left text-sm" data-testid="members-table">
-        <thead className="text-slate-400">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>{group.headers.map((h) => <th key={h.id} className="border-b border-ink-700 py-2 pr-4 font-medium">{flexRender(h.column.columnDef.header, h.getContext())}</th>)}</tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-ink-700/60" data-testid={`member-${row.original.email}`}>
-              {row.getVisibleCells().map((cell) => <td key={cell.id} className="py-2 pr-4">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable table={table} testId="members-table" rowTestId={(m) => `member-${m.email}`} />
     </div>
   );
 }
