@@ -5,8 +5,8 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
-import { Alert } from '@/components/ui/alert';
 import { NameForm } from './name-form';
+import { ArchivableList } from './archivable-list';
 
 type Scene = { id: string; name: string; slug: string; archived: boolean; latestRevision: number; updatedAt: string };
 
@@ -43,34 +43,31 @@ export function ScenesList({ studio, showId, canWrite }: { studio: string; showI
           }}
         />
       ) : null}
-      <label className="flex items-center gap-2 text-sm text-slate-400">
-        <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="accent-teal-400" />
-        Include archived scenes
-      </label>
-      {archive.isError ? <Alert tone="error">{archive.error.message}</Alert> : null}
-      {scenes.isPending ? <p className="text-sm text-slate-400">Loading scenes…</p> : null}
-      {scenes.isError ? <Alert tone="error">{scenes.error.message}</Alert> : null}
-      {scenes.data && scenes.data.scenes.length === 0 ? <p className="text-sm text-slate-400">No scenes in this show yet.</p> : null}
-      {scenes.data && scenes.data.scenes.length > 0 ? (
-        <ul className="divide-y divide-ink-700 rounded-md border border-ink-700" data-testid="scenes-list">
-          {scenes.data.scenes.map((scene) => (
-            <li key={scene.id} className="flex items-center justify-between gap-4 px-4 py-3" data-testid={`scene-${scene.slug}`}>
-              <div>
-                <Link href={editorHref(scene.id)} className="font-medium text-slate-200 hover:text-teal-300">{scene.name}</Link>
-                <p className="text-xs text-slate-500">
-                  revision {scene.latestRevision} · updated {dateFormat.format(new Date(scene.updatedAt))}
-                  {scene.archived ? ' · archived' : ''}
-                </p>
-              </div>
-              {canWrite ? (
-                <button type="button" className="text-sm text-slate-400 hover:text-teal-300" onClick={() => archive.mutate(scene)} disabled={archive.isPending}>
-                  {scene.archived ? 'Restore' : 'Archive'}
-                </button>
-              ) : null}
-            </li>
-          ))}
-        </ul>
-      ) : null}
+      <ArchivableList
+        plural="scenes"
+        items={scenes.data?.scenes}
+        loading={scenes.isPending}
+        error={scenes.isError ? scenes.error.message : null}
+        empty="No scenes in this show yet."
+        testId="scenes-list"
+        itemTestId={(scene) => `scene-${scene.slug}`}
+        showArchived={showArchived}
+        onShowArchived={setShowArchived}
+        canWrite={canWrite}
+        onToggleArchive={(scene) => archive.mutate(scene)}
+        archiving={archive.isPending}
+        archiveError={archive.isError ? archive.error.message : null}
+      >
+        {(scene) => (
+          <>
+            <Link href={editorHref(scene.id)} className="font-medium text-slate-200 hover:text-teal-300">{scene.name}</Link>
+            <p className="text-xs text-slate-500">
+              revision {scene.latestRevision} · updated {dateFormat.format(new Date(scene.updatedAt))}
+              {scene.archived ? ' · archived' : ''}
+            </p>
+          </>
+        )}
+      </ArchivableList>
     </div>
   );
 }

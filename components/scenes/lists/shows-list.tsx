@@ -4,8 +4,8 @@ import Link from 'next/link';
 import { useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
-import { Alert } from '@/components/ui/alert';
 import { NameForm } from './name-form';
+import { ArchivableList } from './archivable-list';
 
 type Show = { id: string; name: string; archived: boolean; sceneCount: number; createdAt: string };
 
@@ -37,34 +37,31 @@ export function ShowsList({ studio, canWrite, canOpenScenes }: { studio: string;
           }}
         />
       ) : null}
-      <label className="flex items-center gap-2 text-sm text-slate-400">
-        <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="accent-teal-400" />
-        Include archived shows
-      </label>
-      {archive.isError ? <Alert tone="error">{archive.error.message}</Alert> : null}
-      {shows.isPending ? <p className="text-sm text-slate-400">Loading shows…</p> : null}
-      {shows.isError ? <Alert tone="error">{shows.error.message}</Alert> : null}
-      {shows.data && shows.data.shows.length === 0 ? <p className="text-sm text-slate-400">No shows yet.{canWrite ? ' Name one above to start.' : ''}</p> : null}
-      {shows.data && shows.data.shows.length > 0 ? (
-        <ul className="divide-y divide-ink-700 rounded-md border border-ink-700" data-testid="shows-list">
-          {shows.data.shows.map((show) => (
-            <li key={show.id} className="flex items-center justify-between gap-4 px-4 py-3" data-testid={`show-${show.name}`}>
-              <div>
-                <Link href={`/studios/${studio}/shows/${show.id}`} className="font-medium text-slate-200 hover:text-teal-300">{show.name}</Link>
-                <p className="text-xs text-slate-500">
-                  {canOpenScenes ? `${show.sceneCount} scene${show.sceneCount === 1 ? '' : 's'}` : 'Scenes arrive as deliveries'}
-                  {show.archived ? ' · archived' : ''}
-                </p>
-              </div>
-              {canWrite ? (
-                <button type="button" className="text-sm text-slate-400 hover:text-teal-300" onClick={() => archive.mutate(show)} disabled={archive.isPending}>
-                  {show.archived ? 'Restore' : 'Archive'}
-                </button>
-              ) : null}
-            </li>
-          ))}
-        </ul>
-      ) : null}
+      <ArchivableList
+        plural="shows"
+        items={shows.data?.shows}
+        loading={shows.isPending}
+        error={shows.isError ? shows.error.message : null}
+        empty={`No shows yet.${canWrite ? ' Name one above to start.' : ''}`}
+        testId="shows-list"
+        itemTestId={(show) => `show-${show.name}`}
+        showArchived={showArchived}
+        onShowArchived={setShowArchived}
+        canWrite={canWrite}
+        onToggleArchive={(show) => archive.mutate(show)}
+        archiving={archive.isPending}
+        archiveError={archive.isError ? archive.error.message : null}
+      >
+        {(show) => (
+          <>
+            <Link href={`/studios/${studio}/shows/${show.id}`} className="font-medium text-slate-200 hover:text-teal-300">{show.name}</Link>
+            <p className="text-xs text-slate-500">
+              {canOpenScenes ? `${show.sceneCount} scene${show.sceneCount === 1 ? '' : 's'}` : 'Scenes arrive as deliveries'}
+              {show.archived ? ' · archived' : ''}
+            </p>
+          </>
+        )}
+      </ArchivableList>
     </div>
   );
 }
