@@ -150,7 +150,7 @@ class EquirectProjector implements Projector {
 }
 
 /** The six cube faces as (centre, top) pairs in view space of the 'front' face. */
-const CUBE_FACES: Record<string, readonly [readonly number[], readonly number[]]> = {
+export const CUBE_FACES: Record<string, readonly [readonly number[], readonly number[]]> = {
   front: [[0, 0, 1], [0, 1, 0]],
   back: [[0, 0, -1], [0, 1, 0]],
   right: [[1, 0, 0], [0, 1, 0]],

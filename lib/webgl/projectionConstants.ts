@@ -5,21 +5,13 @@
  * equirectangular 360 x 180, and one 90-degree cube face (physics.md section 7).
  */
 import type { Projection } from '../render/schema';
+import { CUBE_FACES } from '../render/projections';
 
 /** Projection codes of the shader (its PROJECTION switch, lib/webgl/shaderVariant.ts). */
 export const PROJECTION_CODES = { flat: 0, dome: 1, equirect: 2, cubeFace: 3 } as const;
 
 const DEG = Math.PI / 180;
 
-/** Centre and top of each cube face in the front face's view space (lib/render/projections.ts). */
-const CUBE_FACES: Record<string, readonly [readonly number[], readonly number[]]> = {
-  front: [[0, 0, 1], [0, 1, 0]],
-  back: [[0, 0, -1], [0, 1, 0]],
-  right: [[1, 0, 0], [0, 1, 0]],
-  left: [[-1, 0, 0], [0, 1, 0]],
-  up: [[0, 1, 0], [0, 0, -1]],
-  down: [[0, -1, 0], [0, 0, 1]],
-};
 
 /** Uniforms of one projection. */
 export interface ProjectionConstants {
