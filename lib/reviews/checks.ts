@@ -42,21 +42,13 @@ export interface PublishedCheck {
   compute: () => number;
 }
 
-/** The outcome of one check. */
-export interface CheckResult {
-  id: string;
-  title: string;
-  plainWords: string;
-  source: string;
-  unit: string;
-  published: number;
+/** The outcome of one check: the check's description, what the engine gave, and whether it is within tolerance. */
+export type CheckResult = Omit<PublishedCheck, 'compute'> & {
   computed: number;
   /** |computed - published|, in `unit` */
   error: number;
-  tolerance: number;
-  toleranceWhy: string;
   passed: boolean;
-}
+};
 
 /**
  * Synge's shadow half-angle for a hovering observer, measured from the
