@@ -8,7 +8,8 @@ import { Frame, RenderJob, Scene, SceneRevision, sequelize } from '@/models';
 import { properTimeOfFrame, renderRequestFor } from './frames';
 import { frameFileName, type FrameReadout } from './settings';
 
-export type FrameOutcome = 'rendered' | 'already-stored' | 'skipped-cancelled' | 'skipped-missing';
+/** Why a frame was not rendered (renderJobFrame returns one of these instead of a frame). */
+export type FrameSkip = 'already-stored' | 'skipped-cancelled' | 'skipped-missing';
 
 /** Object key of a frame: deterministic, so a retry finds what an earlier attempt stored. */
 export function frameObjectKey(studioId: string, jobId: string, fileName: string): string {
@@ -20,7 +21,6 @@ export interface RenderedFrame {
   renderJobId: string;
   index: number;
   studioId: string;
-  jobId: string;
   format: RenderJob['settings']['format'];
   sceneSlug: string;
   spec: SceneRevision['spec'];
@@ -49,7 +49,7 @@ async function revisionOf(job: RenderJob): Promise<{ spec: SceneRevision['spec']
  * Returns the outcome when there is nothing to render (cancelled, finished,
  * already stored, or gone).
  */
-export async function renderJobFrame(renderJobId: string, index: number, context: { pool?: RenderPool }): Promise<RenderedFrame | Exclude<FrameOutcome, 'rendered'>> {
+export async function renderJobFrame(renderJobId: string, index: number, context: { pool?: RenderPool }): Promise<RenderedFrame | FrameSkip> {
   const job = await RenderJob.findByPk(renderJobId);
   if (!job) return 'skipped-missing';
   if (job.status === 'cancelled' || job.status === 'done') return 'skipped-cancelled';
@@ -67,7 +67,7 @@ export async function renderJobFrame(renderJobId: string, index: number, context
   const after = await RenderJob.findByPk(renderJobId, { attributes: ['status'] });
   if (!after || after.status === 'cancelled') return 'skipped-cancelled';
   return {
-    renderJobId, index, studioId: job.studioId, jobId: job.id, format: job.settings.format, sceneSlug: revision.sceneSlug,
+    renderJobId, index, studioId: job.studioId, format: job.settings.format, sceneSlug: revision.sceneSlug,
     spec: revision.spec, tau, bytes: image.bytes, renderMs,
   };
 }
@@ -81,7 +81,7 @@ export async function renderJobFrame(renderJobId: string, index: number, context
 export async function storeRenderedFrame(frame: RenderedFrame, workerName: string): Promise<{ completed: boolean }> {
   const sha256 = createHash('sha256').update(frame.bytes).digest('hex');
   const fileName = frameFileName(frame.sceneSlug, frame.index, frame.format);
-  const objectKey = frameObjectKey(frame.studioId, frame.jobId, fileName);
+  const objectKey = frameObjectKey(frame.studioId, frame.renderJobId, fileName);
   await putImmutable(objectKey, frame.bytes, sha256, frame.format === 'jpeg' ? 'image/jpeg' : 'image/png');
 
   const physics = readoutAt(frame.spec, sceneWorldline(frame.spec), frame.tau);
@@ -95,19 +95,6 @@ export async function storeRenderedFrame(frame: RenderedFrame, workerName: strin
     { ignoreDuplicates: true },
   );
   return { completed: await refreshProgress(frame.renderJobId) };
-}
-
-/**
- * Renders one frame of a render job and records it (both stages in turn).
- * Safe to run twice for the same frame (a crashed worker's job is retried):
- * a frame already recorded is skipped, an identical stored object is reused,
- * and the (job, index) row is unique.
- */
-export async function processFrame(renderJobId: string, index: number, context: { pool?: RenderPool; workerName: string }): Promise<FrameOutcome> {
-  const rendered = await renderJobFrame(renderJobId, index, context);
-  if (typeof rendered === 'string') return rendered;
-  await storeRenderedFrame(rendered, context.workerName);
-  return 'rendered';
 }
 
 /** Recounts stored frames (idempotent) and returns whether this call saw the job complete first. */

@@ -30,7 +30,8 @@ export async function runWorker(workerName: string, log: (line: string) => void 
   const pool: RenderPool = createRenderPool(threads);
   const boss = await queue();
   let stopping = false;
-  let wakeIdle: (() => void) | null = null;
+  // ends an idle wait early when the worker is stopped
+  let wakeIdle = () => {};
 
   const describe = (job: FrameJob) => `render ${job.data.renderJobId.slice(0, 8)} frame ${job.data.index}`;
 
@@ -73,7 +74,6 @@ export async function runWorker(workerName: string, log: (line: string) => void 
           wakeIdle = resolve;
           setTimeout(resolve, IDLE_POLL_MS);
         });
-        wakeIdle = null;
         continue;
       }
       try {
@@ -99,7 +99,7 @@ export async function runWorker(workerName: string, log: (line: string) => void 
   return {
     stop: async () => {
       stopping = true;
-      (wakeIdle as (() => void) | null)?.();
+      wakeIdle();
       await running;
       await stopQueue();
       await pool.close();

@@ -87,10 +87,6 @@ export function sceneWorldline(spec: Pick<SceneSpec, 'massSolar' | 'path'>): Wor
   return buildWorldline(toWorldlineSpec(spec));
 }
 
-function nullableTimes(m: number | null, secondsPerM: number): number | null {
-  return m === null ? null : m * secondsPerM;
-}
-
 /**
  * Readouts at proper time tau (M) along the scene's path.
  * @param bodyLengthMetres length the tides act across (default 2 m, a person)
@@ -102,6 +98,7 @@ export function readoutAt(spec: Pick<SceneSpec, 'massSolar'>, worldline: Worldli
   const scale = massScale(spec.massSolar);
   const { r, energy } = sample.state;
   const f = 1 - 2 / r;
+  const distantM = distantObserverTime(worldline, sample.tau);
   return {
     tau: sample.tau,
     tauSeconds: sample.tau * scale.secondsPerM,
@@ -112,7 +109,7 @@ export function readoutAt(spec: Pick<SceneSpec, 'massSolar'>, worldline: Worldli
     speedRelativeToHover: r > 2 ? Math.sqrt(Math.max(0, 1 - f / (energy * energy))) : null,
     orbitBand: sample.orbitBand,
     countdownSeconds: sample.properTimeLeftSeconds,
-    distantTimeSeconds: nullableTimes(distantObserverTime(worldline, sample.tau), scale.secondsPerM),
+    distantTimeSeconds: distantM === null ? null : distantM * scale.secondsPerM,
     thrustG: sample.thrustG,
     stretchG: sample.stretchG,
     squeezeG: sample.squeezeG,

@@ -14,6 +14,7 @@
 //   that render time (queue fetch and completion, database reads, SHA-256, S3
 //   put, readouts; the worker stores a frame while the next one renders).
 import { spawn, type ChildProcess } from 'node:child_process';
+import os from 'node:os';
 import { createScene, createShow } from '@/lib/scenes/service';
 import { requestRender } from '@/lib/renders/service';
 import { stopQueue } from '@/lib/queue/boss';
@@ -114,7 +115,7 @@ async function main() {
   }
   const line = (n: number, r: Run) =>
     `farm: ${n} worker${n > 1 ? 's' : ' '} ${r.framesPerMinute.toFixed(1)} frames/min (${r.steadyFrames} steady-state frames in ${r.spanS.toFixed(1)} s; render median ${r.renderMsMedian} ms/frame; frames per worker ${Object.values(r.perWorker).join(' + ')})`;
-  console.log(`farm: ${FRAMES} frames of a ${SIDE}x${SIDE} dome master (demo "${approach.name}"), PNG8, one render thread per worker, ${(await import('node:os')).availableParallelism()} cores, ${ROUNDS} alternating rounds`);
+  console.log(`farm: ${FRAMES} frames of a ${SIDE}x${SIDE} dome master (demo "${approach.name}"), PNG8, one render thread per worker, ${os.availableParallelism()} cores, ${ROUNDS} alternating rounds`);
   for (let round = 0; round < ROUNDS; round++) {
     console.log(line(1, ones[round]));
     console.log(line(2, twos[round]));

@@ -34,16 +34,15 @@ export function ChartCursor({ insets, x, y, line = true }: { insets: PlotInsets;
   const fraction = x === 'inherit' ? 'var(--chart-cursor-x, 0)' : String(x);
   // each mark sits in a box the size of the plot area; translating the box by a fraction of its own size
   // moves the mark by that fraction of the plot
-  const plot = { left: insets.left, right: insets.right, top: insets.top, bottom: insets.bottom };
   return (
     <div className="pointer-events-none absolute inset-0 overflow-hidden" aria-hidden="true" data-testid="chart-cursor">
       {line ? (
-        <div className="absolute" style={{ ...plot, transform: `translateX(calc(${fraction} * 100%))`, willChange: 'transform' }}>
+        <div className="absolute" style={{ ...insets, transform: `translateX(calc(${fraction} * 100%))`, willChange: 'transform' }}>
           <div className="absolute inset-y-0 left-0 w-[1.5px] -translate-x-1/2" style={{ background: CURSOR }} />
         </div>
       ) : null}
       {y !== undefined && y !== null ? (
-        <div className="absolute" style={{ ...plot, transform: `translate(calc(${fraction} * 100%), calc(${-y} * 100%))`, willChange: 'transform' }}>
+        <div className="absolute" style={{ ...insets, transform: `translate(calc(${fraction} * 100%), calc(${-y} * 100%))`, willChange: 'transform' }}>
           <div className="absolute bottom-0 left-0 h-2.5 w-2.5 -translate-x-1/2 translate-y-1/2 rounded-full border border-[#05070c]" style={{ background: CURSOR }} />
         </div>
       ) : null}

@@ -19,14 +19,15 @@ export function effectivePotential(rM: number, angularMomentum: number): number 
 export function PotentialChart({ radiusM, energy, angularMomentum, maxRadiusM, hovering }: { radiusM: number; energy: number; angularMomentum: number; maxRadiusM: number; hovering: boolean }) {
   const hiRs = Math.max(6, (maxRadiusM / 2) * 1.3);
   const e2 = energy * energy;
-  const { yLo, yHi } = potentialRange(hiRs, angularMomentum, e2);
+  const curve = useMemo(() => potentialCurve(hiRs, angularMomentum), [hiRs, angularMomentum]);
+  const { yLo, yHi } = potentialRange(curve, e2);
   return (
     <figure className="space-y-1" data-testid="potential-chart">
       <figcaption className="text-xs font-medium text-slate-300">
         Effective potential for this moment&apos;s angular momentum ({angularMomentum.toFixed(2)} GM/c){hovering ? '; rockets hold the camera off the curve' : ''}
       </figcaption>
       <div className="relative h-48 [contain:strict]">
-        <PotentialPlot hiRs={hiRs} angularMomentum={angularMomentum} e2={e2} />
+        <PotentialPlot data={curve} hiRs={hiRs} e2={e2} yLo={yLo} yHi={yHi} />
         <ChartCursor insets={{ left: 44, right: 12, top: 6, bottom: 34 }} line={false} x={logFraction(Math.max(radiusM / 2, LO_RS), LO_RS, hiRs)} y={linearFraction(Math.min(Math.max(e2, yLo), yHi), yLo, yHi)} />
       </div>
     </figure>
@@ -43,17 +44,14 @@ function potentialCurve(hiRs: number, angularMomentum: number): { rRs: number; v
   return out;
 }
 
-function potentialRange(hiRs: number, angularMomentum: number, e2: number): { yLo: number; yHi: number } {
-  const data = potentialCurve(hiRs, angularMomentum);
+function potentialRange(data: { rRs: number; v: number }[], e2: number): { yLo: number; yHi: number } {
   const vMax = Math.max(...data.map((d) => d.v));
   return { yHi: Math.max(1.1, Math.min(vMax, 3) * 1.1, e2 * 1.1), yLo: Math.min(0, ...data.map((d) => d.v).filter((v) => v > -1)) };
 }
 
-/** The chart itself, re-rendered only when the angular momentum, energy or radius range change. */
-const PotentialPlot = memo(function PotentialPlot({ hiRs, angularMomentum, e2 }: { hiRs: number; angularMomentum: number; e2: number }) {
+/** The chart itself, re-rendered only when the curve, the energy or the ranges change. */
+const PotentialPlot = memo(function PotentialPlot({ data, hiRs, e2, yLo, yHi }: { data: { rRs: number; v: number }[]; hiRs: number; e2: number; yLo: number; yHi: number }) {
   const loRs = LO_RS;
-  const data = useMemo(() => potentialCurve(hiRs, angularMomentum), [hiRs, angularMomentum]);
-  const { yLo, yHi } = potentialRange(hiRs, angularMomentum, e2);
   const bands = [
     { name: 'interior' as const, x1: loRs, x2: BAND_LIMITS_RS.horizon },
     { name: 'no orbits' as const, x1: BAND_LIMITS_RS.horizon, x2: BAND_LIMITS_RS.photonSphere },

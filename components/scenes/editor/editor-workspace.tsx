@@ -41,8 +41,8 @@ export function EditorWorkspace({
   const setScreenTime = useCallback((s: number) => setScreenTimeRaw(Number.isFinite(s) ? s : 0), []);
   const clampedScreen = timing ? Math.min(Math.max(screenTime, timing.screenStartS), timing.screenEndS) : 0;
   const tau = live ? properTimeAtScreen(live.timing, live.worldline, clampedScreen) : 0;
-  const deferredTau = useDeferredValue(tau);
   const deferredScreen = useDeferredValue(clampedScreen);
+  const deferredTau = live ? properTimeAtScreen(live.timing, live.worldline, deferredScreen) : 0;
   const readout = useMemo(() => (live ? readoutAt(live.spec, live.worldline, deferredTau) : null), [live, deferredTau]);
   const playhead: PlayheadValue = useMemo(() => ({ tau: deferredTau, screenTime: deferredScreen, setScreenTime }), [deferredTau, deferredScreen, setScreenTime]);
 

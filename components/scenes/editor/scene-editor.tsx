@@ -45,8 +45,9 @@ export function SceneEditor(props: SceneEditorProps) {
   const [outcome, setOutcome] = useState<SaveOutcome | null>(null);
 
   const mass = Number(values.massSolar);
-  const secondsPerM = Number.isFinite(mass) && mass > 0 && mass <= 1e11 ? massScale(mass).secondsPerM : null;
-  const metresPerM = Number.isFinite(mass) && mass > 0 && mass <= 1e11 ? massScale(mass).metresPerM : null;
+  const scale = Number.isFinite(mass) && mass > 0 && mass <= 1e11 ? massScale(mass) : null;
+  const secondsPerM = scale?.secondsPerM ?? null;
+  const metresPerM = scale?.metresPerM ?? null;
   // stable between edits, so scrubbing (EditorWorkspace's own state) re-renders none of the panels
   const context: EditorContextValue = useMemo(
     () => ({ canEdit, secondsPerM, metresPerM, time: timeUnitFor(secondsPerM), issues, live }),
