@@ -1,6 +1,6 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, pageContent } from './support';
 
 // A render worker must be running against the same database (scripts/worker.ts).
 // Frames are kept tiny (128 px dome masters, three-frame sequences) so renders finish in seconds even on a loaded machine.
@@ -124,10 +124,10 @@ test.describe('renders', () => {
     await signInAs(page, 'operator');
     await expect(page.getByTestId('nav-renders')).toHaveCount(0);
     await page.goto(`/studios/${DEMO_STUDIO_SLUG}/renders`);
-    await expect(page.getByRole('main').getByTestId('forbidden')).toBeVisible();
+    await expect(pageContent(page).getByTestId('forbidden')).toBeVisible();
     await expect(page.getByTestId('new-render')).toHaveCount(0);
     await page.goto(`/studios/${DEMO_STUDIO_SLUG}/renders/new`);
-    await expect(page.getByRole('main').getByTestId('forbidden')).toBeVisible();
+    await expect(pageContent(page).getByTestId('forbidden')).toBeVisible();
     await expect(page.getByTestId('new-render-form')).toHaveCount(0);
 
     // A well-formed request, so the answer is about the role, not the body (route order: schema, session, role).

@@ -1,6 +1,6 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, mailTo } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, mailTo, pageContent } from './support';
 
 // A cold dev server compiles each route on first use: the whole flow can take 15 minutes there.
 test.describe.configure({ timeout: 1_200_000 });
@@ -39,7 +39,7 @@ async function postJson<T>(page: Page, url: string, data: unknown, status = 201)
 /** Submit a revision through the Reviews page's form; returns the new review's id. */
 async function submitThroughForm(page: Page, showName: string, sceneId: string, revision: number): Promise<string> {
   await page.goto(`/studios/${DEMO_STUDIO_SLUG}/reviews`);
-  const form = page.getByTestId('submit-review-form');
+  const form = pageContent(page).getByTestId('submit-review-form');
   await expect(form).toBeVisible({ timeout: 120_000 });
   await form.getByTestId('submit-show').selectOption({ label: showName });
   await expect(form.getByTestId('submit-scene').locator(`option[value="${sceneId}"]`)).toHaveCount(1, { timeout: 120_000 });
@@ -54,7 +54,7 @@ async function submitThroughForm(page: Page, showName: string, sceneId: string, 
 
 async function openReview(page: Page, reviewId: string) {
   await page.goto(`/studios/${DEMO_STUDIO_SLUG}/reviews/${reviewId}`);
-  await expect(page.getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
+  await expect(pageContent(page).getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
 }
 
 /** Advisor: scrub with the keyboard to about `fraction` of the shot, mark a point on the frame and pin a note there. */
@@ -93,7 +93,7 @@ test.describe('reviews', () => {
     // 2. The advisor finds it in the list and opens the accuracy report.
     await advisor.goto(`/studios/${DEMO_STUDIO_SLUG}/reviews`);
     await advisor.locator(`[data-review-id="${firstReviewId}"] a`).click();
-    await expect(advisor.getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
+    await expect(pageContent(advisor).getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
     await advisor.getByTestId('report-link').click();
     const report = advisor.getByTestId('accuracy-report');
     await expect(report).toBeVisible({ timeout: 300_000 });
@@ -113,7 +113,7 @@ test.describe('reviews', () => {
 
     // 3. Back on the review, the advisor pins a note at a moment, cannot approve while it is open, and asks for changes.
     await advisor.getByTestId('back-to-review').click();
-    await expect(advisor.getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
+    await expect(pageContent(advisor).getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
     await pinNote(advisor, 'The look should follow the hole more slowly here.', 0.5);
     await advisor.screenshot({ path: `${SHOTS}/review-advisor.png`, fullPage: true });
     await advisor.getByTestId('approve').click();

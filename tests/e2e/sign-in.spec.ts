@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, pageContent } from './support';
 
 // The navigation each role should see (product.md, People and roles; lib/auth/navigation.ts).
 const EXPECTED_NAV: Record<string, string[]> = {
@@ -51,7 +51,7 @@ test.describe('sign-in', () => {
     await signIn.signIn(demoEmail('producer'), DEMO_PASSWORD);
     await expect(page.getByTestId('studio-name')).toBeVisible();
     await page.goto(`/studios/${DEMO_STUDIO_SLUG}/studio`);
-    await expect(page.getByRole('main').getByTestId('forbidden')).toBeVisible();
+    await expect(pageContent(page).getByTestId('forbidden')).toBeVisible();
     await page.goto('/studios/not-my-studio');
     await expect(page.getByTestId('not-found')).toBeVisible();
   });

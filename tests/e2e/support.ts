@@ -19,3 +19,13 @@ export async function apiSignedInAs(playwright: { request: { newContext(o: { bas
   if (!response.ok()) throw new Error(`could not sign in as ${role}: ${response.status()}`);
   return context;
 }
+
+/**
+ * The page's own content: the layout's <main>. Page-level test ids are looked up inside it because
+ * React can leave a hidden copy of freshly streamed content at the end of <body> for a moment (a
+ * `<div hidden id="S:n">` segment waiting to be revealed, seen in traces), which strict locators
+ * would otherwise count twice.
+ */
+export function pageContent(page: import('@playwright/test').Page): import('@playwright/test').Locator {
+  return page.getByRole('main');
+}
