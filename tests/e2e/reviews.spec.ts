@@ -59,16 +59,16 @@ async function openReview(page: Page, reviewId: string) {
 
 /** Advisor: scrub with the keyboard to about `fraction` of the shot, mark a point on the frame and pin a note there. */
 async function pinNote(page: Page, body: string, fraction: number) {
-  const scrubber = page.getByTestId('scrubber');
+  const scrubber = pageContent(page).getByTestId('scrubber');
   await scrubber.focus();
   await scrubber.press('Home');
   for (let i = 0; i < Math.round(fraction * 10); i++) await scrubber.press('PageUp');
-  await expect(page.getByTestId('frame-image')).toHaveAttribute('data-loaded', 'true', { timeout: 180_000 });
-  await page.getByTestId('frame-image-box').click({ position: { x: 60, y: 40 } });
-  await expect(page.getByTestId('frame-image-point')).toBeVisible();
-  await page.getByTestId('pin-note-body').fill(body);
-  await page.getByTestId('pin-note').click();
-  await expect(page.getByTestId('note-thread').filter({ hasText: body })).toBeVisible({ timeout: 60_000 });
+  await expect(pageContent(page).getByTestId('frame-image')).toHaveAttribute('data-loaded', 'true', { timeout: 180_000 });
+  await pageContent(page).getByTestId('frame-image-box').click({ position: { x: 60, y: 40 } });
+  await expect(pageContent(page).getByTestId('frame-image-point')).toBeVisible();
+  await pageContent(page).getByTestId('pin-note-body').fill(body);
+  await pageContent(page).getByTestId('pin-note').click();
+  await expect(pageContent(page).getByTestId('note-thread').filter({ hasText: body })).toBeVisible({ timeout: 60_000 });
 }
 
 test.describe('reviews', () => {
@@ -84,8 +84,8 @@ test.describe('reviews', () => {
 
     // 1. The producer submits revision 1 from the Reviews page; advisors are e-mailed a link.
     const firstReviewId = await submitThroughForm(producer, showName, sceneId, 1);
-    await expect(producer.getByTestId('review-state')).toHaveText('In review');
-    await expect(producer.getByTestId('pin-note-body')).toHaveCount(0); // producers reply only
+    await expect(pageContent(producer).getByTestId('review-state')).toHaveText('In review');
+    await expect(pageContent(producer).getByTestId('pin-note-body')).toHaveCount(0); // producers reply only
     if (process.env.SKYWELL_MAIL_FAKE_URL) {
       await expect.poll(async () => (await mailTo(demoEmail('advisor'))).some((m) => m.text.includes(firstReviewId)), { timeout: 30_000 }).toBe(true);
     }
@@ -94,15 +94,15 @@ test.describe('reviews', () => {
     await advisor.goto(`/studios/${DEMO_STUDIO_SLUG}/reviews`);
     await advisor.locator(`[data-review-id="${firstReviewId}"] a`).click();
     await expect(pageContent(advisor).getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
-    await advisor.getByTestId('report-link').click();
-    const report = advisor.getByTestId('accuracy-report');
+    await pageContent(advisor).getByTestId('report-link').click();
+    const report = pageContent(advisor).getByTestId('accuracy-report');
     await expect(report).toBeVisible({ timeout: 300_000 });
-    await expect(advisor.getByTestId('checks-summary')).toContainText('passes all');
+    await expect(pageContent(advisor).getByTestId('checks-summary')).toContainText('passes all');
     await expect(advisor.locator('[data-testid="check-row"][data-passed="false"]')).toHaveCount(0);
-    expect(await advisor.getByTestId('check-row').count()).toBeGreaterThanOrEqual(8);
+    expect(await pageContent(advisor).getByTestId('check-row').count()).toBeGreaterThanOrEqual(8);
     await expect(advisor.locator('[data-testid="key-moment"][data-kind="horizon"]')).toHaveCount(1);
-    await expect(advisor.getByTestId('non-physical-list')).toContainText('exposure');
-    await expect(advisor.getByTestId('report-idealisations')).toContainText('eternal');
+    await expect(pageContent(advisor).getByTestId('non-physical-list')).toContainText('exposure');
+    await expect(pageContent(advisor).getByTestId('report-idealisations')).toContainText('eternal');
     for (const frame of await advisor.locator('[data-testid^="moment-frame-"]').all()) {
       await expect.poll(() => frame.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth), { timeout: 240_000 }).toBeGreaterThan(0);
     }
@@ -112,19 +112,19 @@ test.describe('reviews', () => {
     await advisor.emulateMedia({ media: 'screen' });
 
     // 3. Back on the review, the advisor pins a note at a moment, cannot approve while it is open, and asks for changes.
-    await advisor.getByTestId('back-to-review').click();
+    await pageContent(advisor).getByTestId('back-to-review').click();
     await expect(pageContent(advisor).getByTestId('review-page')).toBeVisible({ timeout: 180_000 });
     await pinNote(advisor, 'The look should follow the hole more slowly here.', 0.5);
     await advisor.screenshot({ path: `${SHOTS}/review-advisor.png`, fullPage: true });
-    await advisor.getByTestId('approve').click();
-    await expect(advisor.getByTestId('decision-error')).toContainText('still open', { timeout: 120_000 });
-    await advisor.getByTestId('changes-message').fill('Slow the look down at mid-fall; see the note.');
-    await advisor.getByTestId('request-changes').click();
-    await expect(advisor.getByTestId('review-state')).toHaveText('Changes requested', { timeout: 60_000 });
+    await pageContent(advisor).getByTestId('approve').click();
+    await expect(pageContent(advisor).getByTestId('decision-error')).toContainText('still open', { timeout: 120_000 });
+    await pageContent(advisor).getByTestId('changes-message').fill('Slow the look down at mid-fall; see the note.');
+    await pageContent(advisor).getByTestId('request-changes').click();
+    await expect(pageContent(advisor).getByTestId('review-state')).toHaveText('Changes requested', { timeout: 60_000 });
 
     // 4. The producer reads the request (the closed review takes no more notes) and saves revision 2 based on revision 1.
     await openReview(producer, firstReviewId);
-    await expect(producer.getByTestId('changes-note')).toContainText('Slow the look down');
+    await expect(pageContent(producer).getByTestId('changes-note')).toContainText('Slow the look down');
     const edited = { ...DROP_SPEC, look: { keyframes: [{ tau: 0, look: [-1, 0, 0], up: [0, 0, 1], fovDeg: 100, rollDeg: 0 }, { tau: 34, look: [-1, 0, 0], up: [0, 0, 1], fovDeg: 120, rollDeg: 0 }] } };
     const saved = await postJson<{ revision: { number: number } }>(producer, `${API}/scenes/${sceneId}/revisions`, { basedOn: 1, spec: edited, message: 'Slower look change' });
     expect(saved.revision.number).toBe(2);
@@ -132,21 +132,21 @@ test.describe('reviews', () => {
 
     // 5. The advisor pins a note on revision 2; the producer replies; the advisor resolves it and approves.
     await openReview(advisor, secondReviewId);
-    await expect(advisor.getByTestId('diff-none')).toBeVisible();
+    await expect(pageContent(advisor).getByTestId('diff-none')).toBeVisible();
     await pinNote(advisor, 'Check the countdown here.', 0.8);
     await openReview(producer, secondReviewId);
-    const thread = producer.getByTestId('note-thread').first();
+    const thread = pageContent(producer).getByTestId('note-thread').first();
     await thread.getByTestId('reply-body').fill('Checked: it matches the readout.');
     await thread.getByTestId('reply-send').click();
     await expect(thread.getByTestId('note-reply')).toContainText('Checked', { timeout: 60_000 });
-    await expect(producer.getByTestId('approve')).toHaveCount(0);
+    await expect(pageContent(producer).getByTestId('approve')).toHaveCount(0);
     await advisor.reload();
-    await expect(advisor.getByTestId('note-reply')).toContainText('Checked', { timeout: 180_000 });
-    await advisor.getByTestId('note-thread').first().getByTestId('note-resolve').click();
-    await expect(advisor.getByTestId('note-status').first()).toHaveText('resolved', { timeout: 60_000 });
-    await advisor.getByTestId('approve').click();
-    await expect(advisor.getByTestId('review-state')).toHaveText('Approved', { timeout: 60_000 });
-    await expect(advisor.getByTestId('approved-note')).toContainText('content hash');
+    await expect(pageContent(advisor).getByTestId('note-reply')).toContainText('Checked', { timeout: 180_000 });
+    await pageContent(advisor).getByTestId('note-thread').first().getByTestId('note-resolve').click();
+    await expect(pageContent(advisor).getByTestId('note-status').first()).toHaveText('resolved', { timeout: 60_000 });
+    await pageContent(advisor).getByTestId('approve').click();
+    await expect(pageContent(advisor).getByTestId('review-state')).toHaveText('Approved', { timeout: 60_000 });
+    await expect(pageContent(advisor).getByTestId('approved-note')).toContainText('content hash');
 
     // 6. A render of the approved revision is final, not a draft; one of revision 1 stays a draft.
     const settings = { width: 32, height: 20 };
