@@ -14,6 +14,7 @@
 //   that render time (queue fetch and completion, database reads, SHA-256, S3
 //   put, readouts; the worker stores a frame while the next one renders).
 import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
 import os from 'node:os';
 import { createScene, createShow } from '@/lib/scenes/service';
 import { requestRender } from '@/lib/renders/service';
@@ -24,7 +25,9 @@ import { Frame, RenderJob, Studio, User, sequelize } from '@/models';
 
 const FRAMES = 30;
 const SIDE = 1024;
-const ROUNDS = 2;
+// This machine's speed drifts by a quarter from minute to minute, so the runs alternate in pairs, ABBA
+// (1 then 2 workers, then 2 then 1), and the scaling reported is the median of the pairs' ratios.
+const ROUNDS = 4;
 
 /** Starts a worker process and resolves once it listens for frames. */
 function startWorker(name: string): Promise<ChildProcess> {
@@ -40,6 +43,59 @@ function startWorker(name: string): Promise<ChildProcess> {
   });
 }
 
+/** CPU milliseconds the whole machine has spent busy (Linux /proc/stat; user, nice, system, irq, softirq, steal). */
+function machineBusyMs(): number {
+  const fields = fs.readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
+  const [user, nice, system, , , irq, softirq, steal] = fields;
+  return ((user + nice + system + irq + softirq + steal) * 1000) / 100;
+}
+
+/** CPU milliseconds a process has used (user + system, all threads; Linux /proc). */
+function processCpuMs(pid: number | undefined): number {
+  try {
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+  } catch {
+    return 0;
+  }
+}
+
+/** CPU milliseconds used so far by the database (postgres processes) and the S3 fake (s3rver). */
+function servicesCpuMs(): { databaseMs: number; objectStoreMs: number } {
+  let databaseMs = 0;
+  let objectStoreMs = 0;
+  for (const pid of fs.readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+    try {
+      const cmdline = fs.readFileSync(`/proc/${pid}/cmdline`, 'utf8');
+      if (cmdline.startsWith('postgres')) databaseMs += processCpuMs(Number(pid));
+      else if (cmdline.includes('s3rver')) objectStoreMs += processCpuMs(Number(pid));
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return { databaseMs, objectStoreMs };
+}
+
+/** A reading of the CPU counters at one moment. */
+interface CpuSample {
+  at: number;
+  machineMs: number;
+  workersMs: number;
+  databaseMs: number;
+  objectStoreMs: number;
+  benchMs: number;
+}
+
+/** Linear interpolation of a counter between samples at time t (ms since the epoch). */
+function counterAt(samples: CpuSample[], t: number, pick: (s: CpuSample) => number): number {
+  const i = samples.findIndex((s) => s.at >= t);
+  if (i <= 0) return pick(samples[Math.max(0, i)]);
+  const a = samples[i - 1];
+  const b = samples[i];
+  return pick(a) + ((pick(b) - pick(a)) * (t - a.at)) / Math.max(1, b.at - a.at);
+}
+
 interface Run {
   framesPerMinute: number;
   /** frames stored after every worker's first frame */
@@ -48,6 +104,13 @@ interface Run {
   overhead: number;
   renderMsMedian: number;
   perWorker: Record<string, number>;
+  /** CPU ms per steady-state frame: the whole machine, and the worker processes alone */
+  machineCpuMsPerFrame: number;
+  workersCpuMsPerFrame: number;
+  databaseCpuMsPerFrame: number;
+  objectStoreCpuMsPerFrame: number;
+  benchCpuMsPerFrame: number;
+  renderMsMean: number;
 }
 
 function median(xs: number[]): number {
@@ -58,12 +121,17 @@ function median(xs: number[]): number {
 async function runOnce(workers: number, studioId: string, userId: string, sceneId: string): Promise<Run> {
   const procs = await Promise.all(Array.from({ length: workers }, (_, i) => startWorker(`bench-${workers}-${i}`)));
   const job = await requestRender(studioId, userId, { sceneId, revision: 1, kind: 'sequence', frames: { start: 0, end: FRAMES - 1 }, settings: { width: SIDE, height: SIDE, format: 'png8', supersampling: 1 } });
+  const samples: CpuSample[] = [];
+  const sample = () => samples.push({ at: Date.now(), machineMs: machineBusyMs(), workersMs: procs.reduce((sum, p) => sum + processCpuMs(p.pid), 0), ...servicesCpuMs(), benchMs: processCpuMs(process.pid) });
   for (;;) {
+    sample();
     const current = await RenderJob.findByPk(job.id, { attributes: ['status', 'framesDone'] });
     if (current!.status === 'failed' || current!.status === 'cancelled') throw new Error(`the bench render ended ${current!.status}`);
     if (current!.framesDone >= FRAMES) break;
-    await new Promise((r) => setTimeout(r, 250));
+    // a slow poll: this process shares the two cores with the workers it measures
+    await new Promise((r) => setTimeout(r, 1000));
   }
+  sample();
   for (const p of procs) p.kill('SIGTERM');
   const frames = await Frame.findAll({ where: { renderJobId: job.id }, attributes: ['worker', 'renderMs', 'createdAt'] });
   if (frames.length !== FRAMES) throw new Error(`expected ${FRAMES} frames, found ${frames.length}`);
@@ -86,6 +154,8 @@ async function runOnce(workers: number, studioId: string, userId: string, sceneI
     renderMs += rest.reduce((sum, f) => sum + f.renderMs, 0);
   }
   const spanMs = windowEnd - windowStart;
+  const cpuIn = (pick: (s: CpuSample) => number) => (counterAt(samples, windowEnd, pick) - counterAt(samples, windowStart, pick)) / inWindow;
+  const steady = frames.filter((f) => storedAt(f) > windowStart);
   await new Promise((r) => setTimeout(r, 2000));
   return {
     framesPerMinute: (inWindow / spanMs) * 60_000,
@@ -94,6 +164,12 @@ async function runOnce(workers: number, studioId: string, userId: string, sceneI
     overhead: (busyMs - renderMs) / renderMs,
     renderMsMedian: median(frames.map((f) => f.renderMs)),
     perWorker: Object.fromEntries([...byWorker].map(([name, list]) => [name, list.length])),
+    machineCpuMsPerFrame: cpuIn((c) => c.machineMs),
+    workersCpuMsPerFrame: cpuIn((c) => c.workersMs),
+    databaseCpuMsPerFrame: cpuIn((c) => c.databaseMs),
+    objectStoreCpuMsPerFrame: cpuIn((c) => c.objectStoreMs),
+    benchCpuMsPerFrame: cpuIn((c) => c.benchMs),
+    renderMsMean: steady.reduce((sum, f) => sum + f.renderMs, 0) / steady.length,
   };
 }
 
@@ -106,12 +182,11 @@ async function main() {
   const approach = DEMO_SCENES[0];
   const { scene } = await createScene(studio.id, producer.id, show.id, 'Bench approach', approach.spec);
 
-  // alternate 1 and 2 workers twice, so a change in the machine's load hits both alike
+  // alternate 1 and 2 workers (ABBA), so a change in the machine's speed hits both alike
   const ones: Run[] = [];
   const twos: Run[] = [];
   for (let round = 0; round < ROUNDS; round++) {
-    ones.push(await runOnce(1, studio.id, producer.id, scene.id));
-    twos.push(await runOnce(2, studio.id, producer.id, scene.id));
+    for (const workers of round % 2 === 0 ? [1, 2] : [2, 1]) (workers === 1 ? ones : twos).push(await runOnce(workers, studio.id, producer.id, scene.id));
   }
   const line = (n: number, r: Run) =>
     `farm: ${n} worker${n > 1 ? 's' : ' '} ${r.framesPerMinute.toFixed(1)} frames/min (${r.steadyFrames} steady-state frames in ${r.spanS.toFixed(1)} s; render median ${r.renderMsMedian} ms/frame; frames per worker ${Object.values(r.perWorker).join(' + ')})`;
@@ -122,7 +197,10 @@ async function main() {
   }
   const ratios = ones.map((one, i) => twos[i].framesPerMinute / one.framesPerMinute);
   const renderSlowdown = ones.map((one, i) => twos[i].renderMsMedian / one.renderMsMedian);
-  console.log(`farm: scaling 2/1 workers per round ${ratios.map((r) => r.toFixed(2) + 'x').join(', ')} (target >= 1.8); each frame's render alone took ${renderSlowdown.map((r) => r.toFixed(2) + 'x').join(', ')} as long with two workers running`);
+  console.log(`farm: scaling 2/1 workers per round ${ratios.map((r) => r.toFixed(2) + 'x').join(', ')}, median ${median(ratios).toFixed(2)}x (target >= 1.8); each frame's render alone took ${renderSlowdown.map((r) => r.toFixed(2) + 'x').join(', ')} as long with two workers running`);
+  const cpu = (r: Run) =>
+    `${r.machineCpuMsPerFrame.toFixed(0)} ms (workers ${r.workersCpuMsPerFrame.toFixed(0)} with render wall ${r.renderMsMean.toFixed(0)}, PostgreSQL ${r.databaseCpuMsPerFrame.toFixed(0)}, S3 fake ${r.objectStoreCpuMsPerFrame.toFixed(0)}, this bench ${r.benchCpuMsPerFrame.toFixed(0)})`;
+  console.log(`farm: CPU time per steady-state frame, whole machine: 1 worker ${ones.map(cpu).join(', ')}; 2 workers ${twos.map(cpu).join(', ')}`);
   const overhead = (runs: Run[]) => runs.map((r) => (r.overhead * 100).toFixed(1) + '%').join(', ');
   console.log(`farm: queue overhead per frame ${overhead(ones)} with 1 worker, ${overhead(twos)} with 2 (target < 5% of render time)`);
   await stopQueue();
