@@ -1,9 +1,9 @@
 import { createHash } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import JSZip from 'jszip';
-import { expect as baseExpect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect as baseExpect, type APIRequestContext, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { apiSignedInAs, DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { apiSignedInAs, DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, test } from './support';
 
 // A render worker must be running against the same database (scripts/worker.ts).
 const RENDER_DONE_TIMEOUT_MS = 120_000;

@@ -1,6 +1,6 @@
-import { expect, test } from '@playwright/test';
+import { expect } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, mailTo } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, mailTo, test } from './support';
 
 test.describe('inviting a member', () => {
   test('should e-mail a link that sets a password, after which the new member signs in with the invited role', async ({ page }) => {

@@ -1,6 +1,6 @@
-import { expect as baseExpect, test, type Page } from '@playwright/test';
+import { expect as baseExpect, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, pageContent } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, pageContent, test } from './support';
 
 // A render worker must be running against the same database (scripts/worker.ts).
 // Frames are kept tiny (128 px dome masters, three-frame sequences) so renders finish in seconds even on a loaded machine.

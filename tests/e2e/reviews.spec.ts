@@ -1,6 +1,6 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, type Browser, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, mailTo, pageContent } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, mailTo, pageContent, skipHiddenStreamCopies, test } from './support';
 
 // A cold dev server compiles each route on first use: the whole flow can take 15 minutes there.
 test.describe.configure({ timeout: 1_200_000 });
@@ -20,7 +20,7 @@ const DROP_SPEC = {
 
 async function signedInPage(browser: Browser, role: string): Promise<Page> {
   const context = await browser.newContext();
-  const page = await context.newPage();
+  const page = skipHiddenStreamCopies(await context.newPage());
   const signInPage = new SignInPage(page);
   await signInPage.open();
   // On a cold dev server the form hydrates late; typing before that submits it as a plain GET.

@@ -1,7 +1,7 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
 import { SceneEditorPage } from './pages/scene-editor-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, skipHiddenStreamCopies, test } from './support';
 import { defaultSceneSpec } from '../../lib/scenes/defaults';
 import { sceneSpecSchema } from '../../lib/scenes/schema';
 import { readoutAt, sceneWorldline } from '../../lib/scenes/readout';
@@ -145,7 +145,7 @@ test.describe('scene editor', () => {
     const editorUrl = page.url();
 
     const operatorContext = await browser.newContext();
-    const operator = await operatorContext.newPage();
+    const operator = skipHiddenStreamCopies(await operatorContext.newPage());
     await signIn(operator, 'operator');
     await operator.goto(editorUrl);
     await expect(operator.getByTestId('scene-forbidden')).toBeVisible({ timeout: 120_000 });

@@ -1,6 +1,6 @@
-import { expect, test } from '@playwright/test';
+import { expect } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, pageContent } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, pageContent, test } from './support';
 
 // The navigation each role should see (product.md, People and roles; lib/auth/navigation.ts).
 const EXPECTED_NAV: Record<string, string[]> = {

@@ -1,9 +1,9 @@
 /**
  * The sky view with WebGL switched off by browser flags: the CPU worker draws the frame and the page says so.
  */
-import { expect, test } from '@playwright/test';
+import { expect } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, test } from './support';
 
 test.use({
   launchOptions: {

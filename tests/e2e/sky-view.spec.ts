@@ -2,9 +2,9 @@
  * The sky view (issue 7): WebGL path, agreement with lib/render, fallback after a lost context.
  * Run against a served app: SKYWELL_BASE_URL=... playwright test tests/e2e/sky-view.spec.ts
  */
-import { expect, test, type Page } from '@playwright/test';
+import { expect, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail } from './support';
+import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, test } from './support';
 import { parseFrameRequest, type FrameRequest } from '../../lib/render/schema';
 import { prepareFrame } from '../../lib/render/frame';
 import { renderBandEncoded } from '../../lib/render/renderRows';

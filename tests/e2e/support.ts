@@ -1,3 +1,5 @@
+import { test as base, type Page } from '@playwright/test';
+
 /** The demo studio's accounts (README, Demo accounts); the password is the seeded default. */
 export const DEMO_PASSWORD = process.env.SKYWELL_DEMO_PASSWORD ?? 'skywell-demo-2026';
 export const DEMO_STUDIO_SLUG = 'saltmarsh-dome';
@@ -29,3 +31,22 @@ export async function apiSignedInAs(playwright: { request: { newContext(o: { bas
 export function pageContent(page: import('@playwright/test').Page): import('@playwright/test').Locator {
   return page.getByRole('main');
 }
+
+/**
+ * Makes a page's getByTestId skip elements inside a `hidden` container. React can leave a hidden copy of
+ * freshly streamed content at the end of <body> (a `<div hidden id="S:n">` segment, seen in traces), and
+ * strict locators would otherwise find every test id on the page twice. Elements hidden by CSS still match,
+ * so `toBeHidden` keeps its meaning. Call it on pages a test opens itself; the `page` fixture has it.
+ */
+export function skipHiddenStreamCopies(page: Page): Page {
+  const original = page.getByTestId.bind(page);
+  page.getByTestId = (testId) => (typeof testId === 'string' ? page.locator(`[data-testid=${JSON.stringify(testId)}]:not([hidden] *)`) : original(testId));
+  return page;
+}
+
+/** Playwright's test with a `page` whose getByTestId skips hidden streamed copies (skipHiddenStreamCopies). */
+export const test = base.extend({
+  page: async ({ page }, use) => {
+    await use(skipHiddenStreamCopies(page));
+  },
+});
