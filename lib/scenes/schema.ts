@@ -11,6 +11,8 @@ import { frameRequestSchema, projectionSchema } from '@/lib/render/schema';
 const finite = (field: string) => z.number({ error: `${field} must be a number` }).finite(`${field} must be a finite number`);
 const unitVector = z.tuple([finite('x'), finite('y'), finite('z')]);
 const duration = finite('duration').positive('duration must be a positive proper time (M)');
+/** A fall may instead end where it first reaches a radius (M); the engine checks it is reached. */
+const untilR = finite('untilR').positive('the radius to reach must be positive (M)');
 
 const HORIZON = 'outside the event horizon: r > 2 M (1 r_s)';
 const hoverRadius = finite('r').gt(2, `a hover must be ${HORIZON}`);
@@ -24,12 +26,13 @@ export const segmentSchema = z.discriminatedUnion('kind', [
     duration,
     sense: z.union([z.literal(1), z.literal(-1)]).optional(),
   }),
-  z.strictObject({ kind: z.literal('drop'), r: startRadius.optional(), duration: duration.optional() }),
+  z.strictObject({ kind: z.literal('drop'), r: startRadius.optional(), duration: duration.optional(), untilR: untilR.optional() }),
   z.strictObject({
     kind: z.literal('fall'),
     r: startRadius.optional(),
     speed: finite('speed').min(0, 'speed must be zero or more').lt(1, 'speed must be below the speed of light (< 1 c)'),
     duration: duration.optional(),
+    untilR: untilR.optional(),
   }),
   z.strictObject({
     kind: z.literal('free-fall'),
@@ -38,6 +41,7 @@ export const segmentSchema = z.discriminatedUnion('kind', [
     angularMomentum: finite('angularMomentum'),
     radialSense: z.enum(['in', 'out']),
     duration: duration.optional(),
+    untilR: untilR.optional(),
   }),
   z.strictObject({
     kind: z.literal('hold'),

@@ -54,7 +54,9 @@ function freeFallIsCaptured(r: number, eps: number, l: number, sense: 'in' | 'ou
   const l2 = l * l;
   if (r <= 2) return true;
   if (l2 < 12) return sense === 'in' || e2 < 1; // no barrier: anything that comes back in is captured
-  const rPeak = (l2 + Math.sqrt(l2 * (l2 - 12))) / 2;
+  // the barrier's top is the unstable circular orbit, the inner root r = (l^2 - sqrt(l^4 - 12 l^2 M^2)) / 2M
+  // (Hartle 2003 eq. 9.43; the outer root is the stable orbit at the bottom of the well)
+  const rPeak = (l2 - Math.sqrt(l2 * (l2 - 12))) / 2;
   const vPeak = (1 - 2 / rPeak) * (1 + l2 / (rPeak * rPeak));
   if (r < rPeak) return sense === 'in' || e2 < vPeak || e2 < 1;
   return e2 > vPeak && (sense === 'in' || e2 < 1);
@@ -165,11 +167,35 @@ function buildChain(spec: WorldlineSpec): { issues: WorldlineIssue[]; worldline:
       }
       return d;
     };
-    const radialFall = (eps: number, d: number | undefined, k = eps * eps - 1) => {
+    // a fall's length: a proper time, the first time r reaches untilR, or neither (to the singularity)
+    const untilR = (seg as { untilR?: number }).untilR;
+    const untilROk = (): boolean => {
+      if (untilR === undefined) return true;
+      if (!finitePositive(untilR)) {
+        issues.push({ path: `${at}.untilR`, message: 'must be a finite radius > 0 in M' });
+        return false;
+      }
+      if ((seg as { duration?: number }).duration !== undefined) {
+        issues.push({ path: `${at}.untilR`, message: 'give either a proper time (duration) or a radius to reach (untilR), not both' });
+        return false;
+      }
+      return true;
+    };
+    const radialFall = (eps: number, given: number | undefined, k = eps * eps - 1) => {
       out.k = k;
       out.timeToSingularity = fallTimeToSingularity(r, out.k);
       out.start.energy = eps;
       out.start.ur = -Math.sqrt(Math.max(eps * eps - f, 0));
+      let d = given;
+      if (untilR !== undefined) {
+        if (!untilROk()) return;
+        if (!(untilR < r)) {
+          issues.push({ path: `${at}.untilR`, message: `must be below the radius the fall starts from (r = ${r} M): a radial fall only moves inward` });
+          return;
+        }
+        // proper time from r to untilR: the difference of the times left to the singularity (MTW eq. 31.10 for k < 0)
+        d = out.timeToSingularity - fallTimeToSingularity(untilR, out.k);
+      }
       if (d === undefined) {
         out.duration = out.timeToSingularity;
         out.endsAtSingularity = true;
@@ -279,6 +305,11 @@ function buildChain(spec: WorldlineSpec): { issues: WorldlineIssue[]; worldline:
           return;
         }
         const captured = freeFallIsCaptured(r, eps, l, radialSense);
+        if (!untilROk()) return;
+        if (untilR !== undefined && !captured) {
+          issues.push({ path: `${at}.untilR`, message: 'works only for a free fall that reaches the singularity: give this one a proper time (duration) instead' });
+          return;
+        }
         if (seg.duration === undefined && !captured) {
           issues.push({ path: `${at}.duration`, message: 'is required: this free fall never reaches the singularity' });
           return;
@@ -291,7 +322,14 @@ function buildChain(spec: WorldlineSpec): { issues: WorldlineIssue[]; worldline:
         const track = integrateGeodesic(r, ur, azimuth, l, seg.duration ?? Infinity);
         out.track = track;
         out.timeToSingularity = track.singularityTau;
-        if (seg.duration === undefined || seg.duration >= track.singularityTau) {
+        if (untilR !== undefined) {
+          const reached = firstCrossing(track, untilR);
+          if (reached === null) {
+            issues.push({ path: `${at}.untilR`, message: `is never reached: this free fall goes from r = ${r} M to the singularity without passing r = ${untilR} M` });
+            return;
+          }
+          out.duration = reached;
+        } else if (seg.duration === undefined || seg.duration >= track.singularityTau) {
           if (seg.duration !== undefined && seg.duration > track.singularityTau) {
             issues.push({ path: `${at}.duration`, message: `is ${seg.duration} M but the fall reaches the singularity after ${track.singularityTau} M of proper time` });
           }
@@ -375,6 +413,28 @@ function radiusAtTimeLeftClamped(left: number, k: number, rStart: number): numbe
 
 function sampleTrack(track: GeodesicTrack, s: number): Float64Array {
   return sampleGeodesicTrack(scratch, track, s);
+}
+
+/**
+ * Proper time at which a track first reaches radius `target` (M): the first sample step whose ends straddle
+ * it, then bisection on the track's own interpolant.
+ * @returns proper time from the track's start in M, or null when the track never reaches `target`
+ */
+function firstCrossing(track: GeodesicTrack, target: number): number | null {
+  const side = Math.sign(track.r[0] - target);
+  if (side === 0) return null;
+  for (let i = 1; i < track.count; i++) {
+    if (Math.sign(track.r[i] - target) === side) continue;
+    let lo = track.tau[i - 1];
+    let hi = Math.min(track.tau[i], track.singularityTau);
+    for (let k = 0; k < 80 && hi - lo > 1e-13 * Math.max(1, hi); k++) {
+      const mid = 0.5 * (lo + hi);
+      if (Math.sign(sampleTrack(track, mid)[0] - target) === side) lo = mid;
+      else hi = mid;
+    }
+    return 0.5 * (lo + hi);
+  }
+  return null;
 }
 
 function endState(seg: BuiltSegment): PathState {

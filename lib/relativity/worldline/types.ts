@@ -7,10 +7,13 @@
 export interface HoverSegment { kind: 'hover'; r?: number; duration: number }
 /** Circular geodesic orbit at r > 3; sense +1 moves toward the chain's motion direction. */
 export interface CircularOrbitSegment { kind: 'circular-orbit'; r?: number; duration: number; sense?: 1 | -1 }
-/** Radial free fall from rest at the start radius (r > 2). Without duration: to the singularity. */
-export interface DropSegment { kind: 'drop'; r?: number; duration?: number }
+/**
+ * Radial free fall from rest at the start radius (r > 2). Its length is a proper time (duration), the first
+ * time it reaches a radius (untilR, M), or neither: to the singularity. The same holds for every fall.
+ */
+export interface DropSegment { kind: 'drop'; r?: number; duration?: number; untilR?: number }
 /** Radial inward free fall starting at r (> 2) with speed measured by a hovering observer there, 0 <= speed < 1. */
-export interface FallSegment { kind: 'fall'; r?: number; speed: number; duration?: number }
+export interface FallSegment { kind: 'fall'; r?: number; speed: number; duration?: number; untilR?: number }
 /** Free fall with angular momentum: energy = -u_t, angularMomentum = u_phi (M), initial radial sense. */
 export interface FreeFallSegment {
   kind: 'free-fall';
@@ -19,6 +22,8 @@ export interface FreeFallSegment {
   angularMomentum: number;
   radialSense: 'in' | 'out';
   duration?: number;
+  /** end where r first reaches this radius (M); only for a free fall that reaches the singularity */
+  untilR?: number;
 }
 /** Rockets hold r fixed where the previous segment ended (r > 2), optionally moving tangentially at `orbitalSpeed` (|v| < 1, measured by a hovering observer). */
 export interface HoldSegment { kind: 'hold'; duration: number; orbitalSpeed?: number }

@@ -111,6 +111,16 @@ describe('sampleWorldline', () => {
 });
 
 describe('validateWorldline', () => {
+  it('should capture a fall from rest far away (e = 1) only below l = 4 M', () => {
+    // Hartle 2003 section 9.3 / MTW 1973 eq. 25.19: for e = 1 the barrier's top, the unstable circular orbit at
+    // r = 4 M, has l = 4 M; below it a fall from far away reaches r = 0, above it the barrier turns it back.
+    const fall = (angularMomentum: number) => ({ massSolar: 1, segments: [{ kind: 'free-fall' as const, r: 30, energy: 1, angularMomentum, radialSense: 'in' as const }] });
+    expect(validateWorldline(fall(3.9))).toEqual([]);
+    expect(buildWorldline(fall(3.9)).endsAtSingularity).toBe(true);
+    expect(validateWorldline(fall(4.1))).toEqual([{ path: 'segments[0].duration', message: 'is required: this free fall never reaches the singularity' }]);
+    expect(validateWorldline(fall(4.5)).map((i) => i.path)).toEqual(['segments[0].duration']);
+  });
+
   it('should say precisely why a chain is impossible', () => {
     const issues = validateWorldline({
       massSolar: 10,
