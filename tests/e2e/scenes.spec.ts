@@ -132,6 +132,17 @@ test.describe('scene editor', () => {
     await page.getByTestId('save-revision').click();
     await expect(page.getByTestId('save-outcome')).toContainText('Saved as revision 2', { timeout: 120_000 });
     await expect(page.getByTestId('revision-status')).toContainText('Revision 2');
+
+    // "Until a radius" is kept as a radius: the drop still ends there after its start radius changes.
+    await page.getByTestId('f-path-segments-0-duration-mode').selectOption('radius');
+    const until = page.getByTestId('segment-0-until-r');
+    await until.fill('4');
+    await expect(page.getByTestId('segment-0-summary')).toContainText('ends at 4 r_s');
+    await radius.fill('12');
+    await expect(page.getByTestId('segment-0-summary')).toContainText('ends at 4 r_s');
+    // a radius the fall cannot reach gets its reason at the field
+    await until.fill('13');
+    await expect(page.getByTestId('f-path-segments-0-untilR-error')).toContainText('a radial fall only moves inward');
   });
 
   test('should keep operators out of scenes and show advisors a read-only editor', async ({ page, browser }) => {

@@ -5,10 +5,9 @@ import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import type { SceneSpecInput, SegmentSpec } from '@/lib/scenes/schema';
 import { useEditor } from '../editor/editor-context';
 import { Group, NumberField, SelectField } from '../editor/fields';
-import { FieldRow, NumberInput } from '../editor/number-input';
+import { FieldRow } from '../editor/number-input';
 import { formatDuration, formatNumber } from '../editor/format';
 import { FALL_KINDS, SEGMENT_HINTS, SEGMENT_LABELS, segmentOfKind, type SegmentKind } from './path-segments';
-import { durationUntilRadius } from './until-radius';
 
 const toRs = (m: number) => m / 2;
 const fromRs = (rs: number) => rs * 2;
@@ -135,29 +134,22 @@ function SegmentCard({
 
 type DurationMode = 'time' | 'singularity' | 'radius';
 
-/** Proper-time length of a segment: a time, until the singularity (falls), or until a radius (falls, converted to a time). */
+/**
+ * Length of a segment: a proper time, until the singularity (falls), or until a radius (falls). The radius is
+ * stored as the segment's untilR and resolved by the engine, so it still holds after the mass or an earlier
+ * segment changes.
+ */
 function DurationControl({ index, kind, toSeconds, fromSeconds, timeUnit }: { index: number; kind: SegmentKind; toSeconds: (m: number) => number; fromSeconds: (s: number) => number; timeUnit: string }) {
-  const { canEdit, issues } = useEditor();
-  const { setValue, getValues } = useFormContext<SceneSpecInput>();
-  const name = `path.segments.${index}.duration`;
-  const duration = useWatch({ name: name as never }) as unknown as number | undefined;
+  const { canEdit } = useEditor();
+  const { setValue } = useFormContext<SceneSpecInput>();
+  const durationName = `path.segments.${index}.duration`;
+  const untilName = `path.segments.${index}.untilR`;
+  const duration = useWatch({ name: durationName as never }) as unknown as number | undefined;
+  const untilR = useWatch({ name: untilName as never }) as unknown as number | undefined;
   const isFall = FALL_KINDS.includes(kind);
-  const [mode, setMode] = useState<DurationMode>(isFall && duration === undefined ? 'singularity' : 'time');
-  const [targetRs, setTargetRs] = useState<number | undefined>(undefined);
-  const [radiusNote, setRadiusNote] = useState<string | null>(null);
+  const [mode, setMode] = useState<DurationMode>(isFall && untilR !== undefined ? 'radius' : isFall && duration === undefined ? 'singularity' : 'time');
   const effectiveMode: DurationMode = !isFall && mode !== 'time' ? 'time' : mode;
-  const setDuration = (value: number | undefined) => setValue(name as never, value as never, { shouldDirty: true, shouldValidate: true });
-  const applyRadius = (rs: number | undefined) => {
-    setTargetRs(rs);
-    if (rs === undefined) return;
-    const values = getValues();
-    const result = durationUntilRadius(values.massSolar, values.path.segments as SegmentSpec[], index, fromRs(rs));
-    if (typeof result === 'string') setRadiusNote(result);
-    else {
-      setRadiusNote(null);
-      setDuration(result);
-    }
-  };
+  const set = (name: string, value: number | undefined) => setValue(name as never, value as never, { shouldDirty: true, shouldValidate: true });
   const id = `f-path-segments-${index}-duration-mode`;
   return (
     <>
@@ -171,8 +163,9 @@ function DurationControl({ index, kind, toSeconds, fromSeconds, timeUnit }: { in
           onChange={(e) => {
             const next = e.target.value as DurationMode;
             setMode(next);
-            if (next === 'singularity') setDuration(undefined);
-            if (next === 'time' && duration === undefined) setDuration(10);
+            if (next !== 'radius' && untilR !== undefined) set(untilName, undefined);
+            if (next !== 'time' && duration !== undefined) set(durationName, undefined);
+            if (next === 'time' && duration === undefined) set(durationName, 10);
           }}
         >
           <option value="time">for a proper time</option>
@@ -181,12 +174,20 @@ function DurationControl({ index, kind, toSeconds, fromSeconds, timeUnit }: { in
         </select>
       </FieldRow>
       {effectiveMode === 'time' ? (
-        <NumberField name={name} label="Proper time" unit={timeUnit} toDisplay={toSeconds} fromDisplay={fromSeconds} testId={`segment-${index}-duration`} />
+        <NumberField name={durationName} label="Proper time" unit={timeUnit} toDisplay={toSeconds} fromDisplay={fromSeconds} testId={`segment-${index}-duration`} />
       ) : null}
       {effectiveMode === 'radius' ? (
-        <FieldRow id={`${id}-radius`} label="Until radius" error={radiusNote ?? issues[name]} hint={duration !== undefined ? `= ${formatNumber(toSeconds(duration))} ${timeUnit} of proper time` : undefined}>
-          <NumberInput id={`${id}-radius`} value={targetRs} onChange={applyRadius} optional unit="r_s" disabled={!canEdit} invalid={!!radiusNote} />
-        </FieldRow>
+        <NumberField
+          name={untilName}
+          label="Until radius"
+          unit="r_s"
+          hint={untilR === undefined ? 'the radius where this fall ends; until then it runs to the singularity' : 'the fall ends the first time it reaches this radius'}
+          toDisplay={toRs}
+          fromDisplay={fromRs}
+          optional
+          step={0.1}
+          testId={`segment-${index}-until-r`}
+        />
       ) : null}
     </>
   );

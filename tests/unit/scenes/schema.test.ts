@@ -22,6 +22,18 @@ describe('sceneSpecSchema', () => {
     expect(issues).toContainEqual({ path: 'path.segments.0.speed', message: 'speed must be below the speed of light (< 1 c)' });
   });
 
+  it('should keep a fall that runs until a radius, and say at the field when it cannot get there', () => {
+    // a drop from 10 M until 4 M (MTW 1973 eq. 31.10 gives its proper time; tests/unit/relativity/untilRadius.test.ts)
+    expect(issuesFor((s) => { s.path.segments = [{ kind: 'drop', r: 10, untilR: 4 }]; })).toEqual([]);
+    expect(issuesFor((s) => { s.path.segments = [{ kind: 'drop', r: 10, untilR: 0 }]; })).toContainEqual({ path: 'path.segments.0.untilR', message: 'the radius to reach must be positive (M)' });
+    expect(issuesFor((s) => { s.path.segments = [{ kind: 'drop', r: 10, untilR: 12 }]; })).toContainEqual({
+      path: 'path.segments.0.untilR',
+      message: 'must be below the radius the fall starts from (r = 10 M): a radial fall only moves inward',
+    });
+    // only falls have a radius to reach
+    expect(issuesFor((s) => { s.path.segments = [{ kind: 'hover', r: 10, duration: 5, untilR: 4 } as never]; }).map((i) => i.path)).toContain('path.segments.0');
+  });
+
   it('should refuse a hover at or inside the horizon at the field', () => {
     for (const r of [2, 1.5]) {
       const issues = issuesFor((s) => { s.path.segments = [{ kind: 'hover', r, duration: 10 }]; });
