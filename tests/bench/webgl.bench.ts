@@ -133,11 +133,11 @@ function serve(): Promise<http.Server> {
 }
 
 /** A short camera move: falling from rest at infinity between 6 and 5 r_s, looking past the hole. */
-function moveRequests(width: number, height: number, frames: number): FrameRequest[] {
+function moveRequests(width: number, height: number, frames: number, dome = false): FrameRequest[] {
   return Array.from({ length: frames }, (_, i) =>
     parseFrameRequest({
       camera: { state: { kind: 'radial', radiusM: 12 - (2 * i) / frames, energy: 1 }, look: [-0.9, 0.3, 0.2], up: [0, 0, 1] },
-      projection: { kind: 'flat', fovDeg: 70 },
+      projection: dome ? { kind: 'dome', apertureDeg: 180 } : { kind: 'flat', fovDeg: 70 },
       width,
       height,
     }),
@@ -203,18 +203,19 @@ async function main(): Promise<void> {
     // This machine's speed drifts from minute to minute, so each size is measured in alternating rounds
     // (WebGL then CPU, CPU then WebGL, ...) and the ratio reported is the median of the rounds' ratios.
     const ROUNDS = 3;
-    for (const [w, h, gpuFrames, cpuFrames] of [[640, 360, 12, 3], [1280, 720, 8, 3]] as const) {
+    // the issue's sizes (flat), then a dome master of about the same pixel count as 1280x720
+    for (const [w, h, gpuFrames, cpuFrames, dome] of [[640, 360, 12, 3, false], [1280, 720, 8, 3, false], [960, 960, 8, 3, true]] as const) {
       const gpuRuns: { fps: number; tableMs: number }[] = [];
       const cpuRuns: { fps: number }[] = [];
       for (let round = 0; round < ROUNDS; round++) {
         for (const path of round % 2 === 0 ? ['gpu', 'cpu'] : ['cpu', 'gpu']) {
           if (path === 'gpu') {
             const cpu0 = gpuProcessCpuSeconds();
-            gpuRuns.push(await page.evaluate((r) => (window as unknown as { bench: { gpu(r: unknown): Promise<{ fps: number; tableMs: number }> } }).bench.gpu(r), moveRequests(w, h, gpuFrames + 1)));
+            gpuRuns.push(await page.evaluate((r) => (window as unknown as { bench: { gpu(r: unknown): Promise<{ fps: number; tableMs: number }> } }).bench.gpu(r), moveRequests(w, h, gpuFrames + 1, dome)));
             // includes the warm-up frame (and its shader compile on the first size)
             if (round === 0) gpuCpuMs.push(`${w}x${h} ${(((gpuProcessCpuSeconds() - cpu0) * 1000) / (gpuFrames + 1)).toFixed(0)} ms`);
           } else {
-            cpuRuns.push(await page.evaluate((r) => (window as unknown as { bench: { cpu(r: unknown): Promise<{ fps: number }> } }).bench.cpu(r), moveRequests(w, h, cpuFrames + 1)));
+            cpuRuns.push(await page.evaluate((r) => (window as unknown as { bench: { cpu(r: unknown): Promise<{ fps: number }> } }).bench.cpu(r), moveRequests(w, h, cpuFrames + 1, dome)));
           }
         }
       }
@@ -222,7 +223,7 @@ async function main(): Promise<void> {
       const fps = (runs: { fps: number }[]) => runs.map((r) => r.fps.toFixed(2)).join(', ');
       const tableMs = gpuRuns.reduce((sum, g) => sum + g.tableMs, 0) / gpuRuns.length;
       rows.push(
-        `${w}x${h}: WebGL ${fps(gpuRuns)} fps (ray table ${tableMs.toFixed(1)} ms/frame), CPU worker ${fps(cpuRuns)} fps, ` +
+        `${w}x${h}${dome ? ' dome' : ''}: WebGL ${fps(gpuRuns)} fps (ray table ${tableMs.toFixed(1)} ms/frame), CPU worker ${fps(cpuRuns)} fps, ` +
           `ratio per round ${ratios.map((r) => r.toFixed(1) + 'x').join(', ')}, median ${median(ratios).toFixed(1)}x${w === 1280 ? ' (target >= 3)' : ''}`,
       );
       console.log(rows[rows.length - 1]);
