@@ -50,12 +50,15 @@ function machineBusyMs(): number {
   return ((user + nice + system + irq + softirq + steal) * 1000) / 100;
 }
 
-/** CPU milliseconds a process has used (user + system, all threads; Linux /proc). */
-function processCpuMs(pid: number | undefined): number {
+/**
+ * CPU milliseconds a process has used (user + system, all threads; Linux /proc), plus, with `reaped`, that of
+ * its children that have ended (how PostgreSQL's exited backends stay counted, through the postmaster).
+ */
+function processCpuMs(pid: number | undefined, reaped = false): number {
   try {
     const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
-    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-    return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ').map(Number);
+    return ((fields[11] + fields[12] + (reaped ? fields[13] + fields[14] : 0)) * 1000) / 100;
   } catch {
     return 0;
   }
@@ -68,7 +71,7 @@ function servicesCpuMs(): { databaseMs: number; objectStoreMs: number } {
   for (const pid of fs.readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
     try {
       const cmdline = fs.readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-      if (cmdline.startsWith('postgres')) databaseMs += processCpuMs(Number(pid));
+      if (cmdline.startsWith('postgres')) databaseMs += processCpuMs(Number(pid), true);
       else if (cmdline.includes('s3rver')) objectStoreMs += processCpuMs(Number(pid));
     } catch {
       // the process ended meanwhile
