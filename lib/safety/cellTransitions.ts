@@ -7,12 +7,11 @@
  * frames is a transition, small wobbles on a slow fade are not.
  */
 import { linearRgbToUv } from './colour';
-import {
-  DARKER_STATE_BELOW,
-  LUMINANCE_CHANGE_MIN,
-  RED_CHROMATICITY_CHANGE_ABOVE,
-  SATURATED_RED_RATIO_MIN,
-} from './thresholds';
+import * as thresholds from './thresholds';
+
+// Module-local copies of the thresholds read per cell per frame: a transpiled import binding (tsx in the render
+// workers, the app's bundler) is a getter call on every read.
+const { DARKER_STATE_BELOW, LUMINANCE_CHANGE_MIN, RED_CHROMATICITY_CHANGE_ABOVE, SATURATED_RED_RATIO_MIN } = thresholds;
 
 /** Tolerance on the 0.1 step, so an exact 0.1 change read from 8-bit codes is not lost to rounding. */
 const LUMINANCE_EPS = 1e-9;

@@ -42,12 +42,16 @@
  */
 import type { Projection } from '../render/schema';
 import { createProjector, type Projector } from '../render/projections';
-import { buildSrgbDecodeTable, linearRgbToUv, redRatio, relativeLuminance } from './colour';
+import * as colour from './colour';
 import { LuminanceSwingTracker, RedTransitionTracker } from './cellTransitions';
 import { FieldFlashCounter, type FlashRun } from './flashCounter';
 import { buildFieldGrid, type FieldGrid } from './fieldGrid';
 import { FLASH_AREA_MAX_SR, FLASH_THRESHOLDS, FLASHES_PER_SECOND_MAX, type FlashThresholds } from './thresholds';
 import { buildWorkingGrid, type WorkingGrid } from './workingGrid';
+
+// Module-local copies of the colour functions called per cell per frame: a transpiled import binding (tsx in
+// the render workers, the app's bundler) is a getter call on every read, which cost a third of the analysis.
+const { buildSrgbDecodeTable, linearRgbToUv, redRatio, relativeLuminance } = colour;
 
 /** Interleaved RGB or RGBA pixel data, rows from the top: 8-bit, 16-bit or float (0..1). */
 export type FramePixels = Uint8Array | Uint8ClampedArray | Uint16Array | Float32Array | Float64Array;

@@ -135,6 +135,9 @@ async function runOnce(workers: number, studioId: string, userId: string, sceneI
     await new Promise((r) => setTimeout(r, 1000));
   }
   sample();
+  // a worker finishes what it holds before it exits (the last frame's store, the photosensitivity pass), so the
+  // next run starts on a quiet machine
+  const exited = procs.map((p) => (p.exitCode !== null ? Promise.resolve() : new Promise((resolve) => p.once('exit', resolve))));
   for (const p of procs) p.kill('SIGTERM');
   const frames = await Frame.findAll({ where: { renderJobId: job.id }, attributes: ['worker', 'renderMs', 'createdAt'] });
   if (frames.length !== FRAMES) throw new Error(`expected ${FRAMES} frames, found ${frames.length}`);
@@ -159,7 +162,7 @@ async function runOnce(workers: number, studioId: string, userId: string, sceneI
   const spanMs = windowEnd - windowStart;
   const cpuIn = (pick: (s: CpuSample) => number) => (counterAt(samples, windowEnd, pick) - counterAt(samples, windowStart, pick)) / inWindow;
   const steady = frames.filter((f) => storedAt(f) > windowStart);
-  await new Promise((r) => setTimeout(r, 2000));
+  await Promise.all(exited);
   return {
     framesPerMinute: (inWindow / spanMs) * 60_000,
     steadyFrames: inWindow,
