@@ -21,7 +21,7 @@ import { requestRender } from '@/lib/renders/service';
 import { stopQueue } from '@/lib/queue/boss';
 import { ensureBucket } from '@/lib/storage/s3';
 import { DEMO_SCENES } from '@/lib/demo/scenes';
-import { Frame, RenderJob, Studio, User, sequelize } from '@/models';
+import { Delivery, Frame, RenderJob, Studio, User, sequelize } from '@/models';
 
 const FRAMES = 30;
 const SIDE = 1024;
@@ -114,6 +114,8 @@ interface Run {
   objectStoreCpuMsPerFrame: number;
   benchCpuMsPerFrame: number;
   renderMsMean: number;
+  /** seconds from the render's completion to its delivery: the photosensitivity pass over all frames */
+  deliveryAfterS: number;
 }
 
 function median(xs: number[]): number {
@@ -163,7 +165,10 @@ async function runOnce(workers: number, studioId: string, userId: string, sceneI
   const cpuIn = (pick: (s: CpuSample) => number) => (counterAt(samples, windowEnd, pick) - counterAt(samples, windowStart, pick)) / inWindow;
   const steady = frames.filter((f) => storedAt(f) > windowStart);
   await Promise.all(exited);
+  const [finished, delivery] = await Promise.all([RenderJob.findByPk(job.id, { attributes: ['finishedAt'] }), Delivery.findOne({ where: { renderJobId: job.id }, attributes: ['createdAt'] })]);
+  if (!finished?.finishedAt || !delivery) throw new Error('the bench render has no delivery after its workers stopped');
   return {
+    deliveryAfterS: (delivery.createdAt.getTime() - finished.finishedAt.getTime()) / 1000,
     framesPerMinute: (inWindow / spanMs) * 60_000,
     steadyFrames: inWindow,
     spanS: spanMs / 1000,
@@ -207,6 +212,7 @@ async function main() {
   const cpu = (r: Run) =>
     `${r.machineCpuMsPerFrame.toFixed(0)} ms (workers ${r.workersCpuMsPerFrame.toFixed(0)} with render wall ${r.renderMsMean.toFixed(0)}, PostgreSQL ${r.databaseCpuMsPerFrame.toFixed(0)}, S3 fake ${r.objectStoreCpuMsPerFrame.toFixed(0)}, this bench ${r.benchCpuMsPerFrame.toFixed(0)})`;
   console.log(`farm: CPU time per steady-state frame, whole machine: 1 worker ${ones.map(cpu).join(', ')}; 2 workers ${twos.map(cpu).join(', ')}`);
+  console.log(`farm: delivery ready after the last frame (photosensitivity pass over ${FRAMES} frames, one worker) ${[...ones, ...twos].map((r) => r.deliveryAfterS.toFixed(1) + ' s').join(', ')}`);
   const overhead = (runs: Run[]) => runs.map((r) => (r.overhead * 100).toFixed(1) + '%').join(', ');
   console.log(`farm: queue overhead per frame ${overhead(ones)} with 1 worker, ${overhead(twos)} with 2 (target < 5% of render time)`);
   await stopQueue();
