@@ -11,6 +11,8 @@
  * the preview draws half-size light frames while the shot moves.
  * Target: at least 20 frames per second at 640x360. Reported, not asserted.
  */
+import fs from 'node:fs';
+import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import type {} from '../../components/sky-view/debug-handle'; // window.__skywellFramesShown
 
@@ -113,10 +115,18 @@ async function playScene(page: Page, sceneName: string, expectedPath: 'webgl' | 
   const after = await page.evaluate(() => ({ frames: window.__skywellFramesShown ?? 0, at: performance.now() }));
   if ((await page.getByTestId('play').getAttribute('aria-label')) === 'Pause') await page.getByTestId('play').click();
   if (profiler) printProfile(sceneName, (await profiler.send('Profiler.stop')).profile);
-  if (TRACE) printTrace(sceneName, JSON.parse((await page.context().browser()!.stopTracing()).toString()));
+  if (TRACE) {
+    const raw = (await page.context().browser()!.stopTracing()).toString();
+    // the whole trace too, for chrome://tracing or Perfetto
+    const file = path.join('.data', 'bench', 'traces', `${sceneName.replace(/\W+/g, '-').toLowerCase()}-${Date.now()}.json`);
+    fs.mkdirSync(path.dirname(file), { recursive: true });
+    fs.writeFileSync(file, raw);
+    console.log(`trace written to ${file}`);
+    printTrace(sceneName, JSON.parse(raw));
+  }
   const seconds = (after.at - before.at) / 1000;
-  const path = (await preview.getAttribute('data-path')) ?? '?';
-  return { fps: (after.frames - before.frames) / seconds, size, path, seconds };
+  const shownPath = (await preview.getAttribute('data-path')) ?? '?';
+  return { fps: (after.frames - before.frames) / seconds, size, path: shownPath, seconds };
 }
 
 async function measure(browser: Browser, scenes: string[], path: 'webgl' | 'cpu'): Promise<PlayResult[]> {
