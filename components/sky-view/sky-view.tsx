@@ -27,9 +27,13 @@ export interface SkyViewProps {
   /** URL prefix of the sky-assets API */
   assetBase?: string;
   onPathChange?: (path: SkyViewPath) => void;
+  /** called after each frame the WebGL path draws */
+  onFrame?: () => void;
+  /** width the frame is shown at, px: a smaller request is scaled up to it (default: the request's width) */
+  displayWidth?: number;
 }
 
-export function SkyView({ request, mode = 'image', forceCpu = false, assetBase = DEFAULT_SKY_ASSET_BASE, onPathChange }: SkyViewProps) {
+export function SkyView({ request, mode = 'image', forceCpu = false, assetBase = DEFAULT_SKY_ASSET_BASE, onPathChange, onFrame, displayWidth }: SkyViewProps) {
   const [path, setPath] = useState<SkyViewPath>({ kind: 'detecting' });
   useEffect(() => {
     if (forceCpu) {
@@ -44,7 +48,7 @@ export function SkyView({ request, mode = 'image', forceCpu = false, assetBase =
   return (
     <div className="space-y-2" data-testid="sky-view">
       <div className="overflow-hidden rounded-md border border-ink-700 bg-black">
-        {path.kind === 'webgl' && <WebGlSky request={request} mode={mode} assetBase={assetBase} onFailure={fallBack} />}
+        {path.kind === 'webgl' && <WebGlSky request={request} mode={mode} assetBase={assetBase} onFailure={fallBack} onFrame={onFrame} displayWidth={displayWidth} />}
         {path.kind === 'cpu' && <CpuSky request={request} mode={mode} assetBase={assetBase} />}
         {path.kind === 'detecting' && <div style={{ width: request.width, height: request.height }} />}
       </div>

@@ -25,6 +25,8 @@ interface WebGlSkyProps {
   /** called when the context is lost or the sky data cannot be loaded */
   onFailure: (reason: string) => void;
   onFrame?: (info: { tableBuildMs: number }) => void;
+  /** width to show the frame at, px; a smaller frame is scaled up by a CSS transform, which leaves its drawing size alone */
+  displayWidth?: number;
 }
 
 function SkyPass({ request, mode, sky, onFrame }: { request: FrameRequest; mode: SkyViewMode; sky: GpuSkyData; onFrame?: WebGlSkyProps['onFrame'] }) {
@@ -58,7 +60,7 @@ function SkyPass({ request, mode, sky, onFrame }: { request: FrameRequest; mode:
 }
 
 /** The lensed sky drawn by the GPU. */
-export function WebGlSky({ request, mode, assetBase, onFailure, onFrame }: WebGlSkyProps) {
+export function WebGlSky({ request, mode, assetBase, onFailure, onFrame, displayWidth }: WebGlSkyProps) {
   const [sky, setSky] = useState<GpuSkyData | null>(null);
   const limit = request.sky.stars.magnitudeLimit;
   const hasSky = sky !== null;
@@ -90,27 +92,33 @@ export function WebGlSky({ request, mode, assetBase, onFailure, onFrame }: WebGl
       clearTimeout(timer);
     };
   }, [assetBase, limit, onFailure, hasSky]);
+  // The canvas keeps the request's size and a transform scales it up: r3f sizes its drawing buffer from the
+  // box's offset size (resize.offsetSize), which a transform leaves alone.
+  const scale = displayWidth && displayWidth > request.width ? displayWidth / request.width : 1;
   return (
-    <div style={{ width: request.width, height: request.height }} data-testid="sky-view-webgl" data-ready={sky && sky.magnitudeLimit === limit ? 'true' : 'false'}>
-      {sky ? (
-        <Canvas
-          frameloop="demand"
-          dpr={1}
-          flat
-          linear
-          gl={{ antialias: false, alpha: false, preserveDrawingBuffer: true, powerPreference: 'high-performance' }}
-          onCreated={({ gl }) => {
-            gl.domElement.addEventListener('webglcontextlost', (event) => {
-              event.preventDefault();
-              onFailure('the WebGL context was lost');
-            });
-          }}
-        >
-          <SkyPass request={request} mode={mode} sky={sky} onFrame={onFrame} />
-        </Canvas>
-      ) : (
-        <p className="p-4 text-sm text-slate-400">Loading sky data…</p>
-      )}
+    <div style={{ width: request.width * scale, height: request.height * scale }} data-testid="sky-view-webgl" data-ready={sky && sky.magnitudeLimit === limit ? 'true' : 'false'}>
+      <div style={{ width: request.width, height: request.height, transform: scale === 1 ? undefined : `scale(${scale})`, transformOrigin: '0 0' }}>
+        {sky ? (
+          <Canvas
+            frameloop="demand"
+            dpr={1}
+            flat
+            linear
+            resize={{ offsetSize: true }}
+            gl={{ antialias: false, alpha: false, preserveDrawingBuffer: true, powerPreference: 'high-performance' }}
+            onCreated={({ gl }) => {
+              gl.domElement.addEventListener('webglcontextlost', (event) => {
+                event.preventDefault();
+                onFailure('the WebGL context was lost');
+              });
+            }}
+          >
+            <SkyPass request={request} mode={mode} sky={sky} onFrame={onFrame} />
+          </Canvas>
+        ) : (
+          <p className="p-4 text-sm text-slate-400">Loading sky data…</p>
+        )}
+      </div>
     </div>
   );
 }

@@ -191,6 +191,45 @@ test.describe('scene editor', () => {
     expect(errors).toEqual([]);
   });
 
+  test('should play with half-size WebGL frames when full ones come slower than 20 per second, full detail at rest, unless asked for full frames', async ({ page }) => {
+    await signIn(page, 'producer');
+    await openDemoShow(page);
+    await page.getByRole('link', { name: 'Drop through the horizon', exact: true }).click();
+    await expect(page.getByTestId('scene-title')).toHaveText('Drop through the horizon', { timeout: 180_000 });
+    const editor = new SceneEditorPage(page);
+    const rested = await editor.waitForFullFrame();
+    expect(rested.path).toBe('webgl');
+    const full = { width: rested.request.width as number, height: rested.request.height as number };
+    const box = page.getByTestId('sky-view-webgl');
+    const shownWidth = (await box.boundingBox())!.width;
+
+    // SwiftShader draws this 640x360 shot well below 20 frames per second, so playing switches to light frames:
+    // drawn at half size, shown in the same box.
+    await page.getByTestId('scrubber').focus();
+    await page.keyboard.press('Home');
+    await page.getByTestId('play').click();
+    const preview = page.getByTestId('preview');
+    await expect(preview).toHaveAttribute('data-detail', 'interactive', { timeout: 60_000 });
+    const light = JSON.parse((await preview.getAttribute('data-request'))!) as { width: number; height: number };
+    expect(light).toMatchObject({ width: full.width / 2, height: full.height / 2 });
+    await expect(page.getByTestId('preview-status')).toContainText('light frame while moving');
+    expect(Math.abs((await box.boundingBox())!.width - shownWidth)).toBeLessThan(1);
+    // the canvas draws the light frame's own pixels (its drawing buffer is not the box's size)
+    expect(await box.locator('canvas').evaluate((c: HTMLCanvasElement) => [c.width, c.height])).toEqual([light.width, light.height]);
+
+    // At rest: the full-detail frame again.
+    await page.getByTestId('play').click();
+    const settled = await editor.waitForFullFrame();
+    expect(settled.request).toMatchObject(full);
+
+    // A producer who prefers sharp frames while moving can ask for them.
+    await page.getByTestId('preview-full-frames').check();
+    await page.getByTestId('play').click();
+    await page.waitForTimeout(2000);
+    await expect(preview).toHaveAttribute('data-detail', 'full');
+    await page.getByTestId('play').click();
+  });
+
   test('should fall back to the CPU renderer when WebGL is lost, with light frames while scrubbing and full detail at rest', async ({ page }) => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));

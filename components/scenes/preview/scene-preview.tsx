@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { frameRequestAt, frameSizeFor } from '@/lib/scenes/frame-request';
 import type { FrameRequest } from '@/lib/render/schema';
 import { SkyView, type SkyViewPath } from '@/components/sky-view/sky-view';
@@ -9,8 +9,57 @@ import type { LiveScene } from '../editor/use-live-scene';
 /** Display box of the preview, px. Full detail renders at this size (1:1). */
 export const PREVIEW_WIDTH = 640;
 export const PREVIEW_HEIGHT = 360;
-/** On the CPU fallback, frames while scrubbing or typing render at this fraction of full size and are scaled up. */
-const CPU_INTERACTIVE_SCALE = 0.5;
+/**
+ * Light frames: while scrubbing, playing or typing, the CPU fallback always, and WebGL when it has drawn
+ * slower than SLOW_FRAME_MS per frame in motion (software WebGL), render at this fraction of full size and
+ * are scaled up; the full-detail frame follows when everything rests.
+ */
+const INTERACTIVE_SCALE = 0.5;
+/** WebGL frames in motion slower than this (median of the last MOTION_SAMPLES intervals) switch to light frames, ms. */
+const SLOW_FRAME_MS = 50;
+const MOTION_SAMPLES = 8;
+/** localStorage key of the producer's choice to keep WebGL frames full size while moving. */
+const FULL_FRAMES_KEY = 'skywell:preview-full-frames-while-moving';
+
+/** The producer's "full-size frames while moving" choice, kept in this browser. */
+function useFullFramesChoice(): [boolean, (on: boolean) => void] {
+  const [on, setOn] = useState(false);
+  useEffect(() => setOn(window.localStorage.getItem(FULL_FRAMES_KEY) === '1'), []);
+  const choose = useCallback((next: boolean) => {
+    setOn(next);
+    window.localStorage.setItem(FULL_FRAMES_KEY, next ? '1' : '0');
+  }, []);
+  return [on, choose];
+}
+
+/**
+ * Watches WebGL frame intervals while `watch` holds (the scrubber moving: dragged or playing) and reports
+ * whether full-size frames come slower than SLOW_FRAME_MS. Once slow, it stays so for this editor: the
+ * machine's WebGL (software on a computer without a GPU) does not speed up. The median resists a pause in a
+ * mouse drag.
+ */
+function useSlowWebGl(watch: boolean): { slow: boolean; onFrame: () => void } {
+  const [slow, setSlow] = useState(false);
+  const watching = useRef(false);
+  watching.current = watch && !slow;
+  const last = useRef(0);
+  const intervals = useRef<number[]>([]);
+  const onFrame = useCallback(() => {
+    const now = performance.now();
+    if (!watching.current) {
+      last.current = 0;
+      intervals.current = [];
+      return;
+    }
+    if (last.current > 0) intervals.current.push(now - last.current);
+    last.current = now;
+    if (intervals.current.length < MOTION_SAMPLES) return;
+    intervals.current = intervals.current.slice(-MOTION_SAMPLES);
+    const sorted = [...intervals.current].sort((a, b) => a - b);
+    if ((sorted[MOTION_SAMPLES / 2 - 1] + sorted[MOTION_SAMPLES / 2]) / 2 > SLOW_FRAME_MS) setSlow(true);
+  }, []);
+  return { slow, onFrame };
+}
 /** How long the scrubber and fields must rest before the CPU fallback renders the full-detail frame, ms. */
 const REST_MS = 220;
 
@@ -18,7 +67,7 @@ type Detail = 'interactive' | 'full';
 
 /** Frame request of the preview at a detail level. */
 function previewRequest(live: LiveScene, tau: number, detail: Detail): FrameRequest {
-  const scale = detail === 'full' ? 1 : CPU_INTERACTIVE_SCALE;
+  const scale = detail === 'full' ? 1 : INTERACTIVE_SCALE;
   const size = frameSizeFor(live.spec.projection, Math.round(PREVIEW_WIDTH * scale), Math.round(PREVIEW_HEIGHT * scale));
   return frameRequestAt(live.spec, live.worldline, tau, size);
 }
@@ -43,16 +92,20 @@ function useMoving(version: number, tau: number, scrubbing: boolean): boolean {
 
 /**
  * The live preview: the shared sky view (WebGL, or lib/render in a worker when
- * WebGL2 is missing or lost). WebGL frames are cheap, so they are always full
- * size; the CPU fallback draws half-size frames while anything moves and the
- * full-detail frame once the scrubber and fields rest. Never blocks typing:
- * requests come from the last valid scene, and the CPU worker keeps only the
- * newest waiting frame.
+ * WebGL2 is missing or lost). While anything moves, the CPU fallback draws
+ * half-size frames, and so does WebGL once it has proved slower than 20 frames
+ * per second in motion (unless the producer asks for full-size frames); the
+ * full-detail frame follows once the scrubber and fields rest. Never blocks
+ * typing: requests come from the last valid scene, and the CPU worker keeps
+ * only the newest waiting frame.
  */
 export function ScenePreview({ live, tau, scrubbing, stale }: { live: LiveScene | null; tau: number; scrubbing: boolean; stale: boolean }) {
   const [path, setPath] = useState<SkyViewPath>({ kind: 'detecting' });
   const moving = useMoving(live?.version ?? 0, tau, scrubbing);
-  const detail: Detail = path.kind === 'cpu' && moving ? 'interactive' : 'full';
+  const webgl = useSlowWebGl(scrubbing && path.kind === 'webgl');
+  const [fullFrames, setFullFrames] = useFullFramesChoice();
+  const light = path.kind === 'cpu' || (path.kind === 'webgl' && webgl.slow && !fullFrames);
+  const detail: Detail = light && moving ? 'interactive' : 'full';
 
   const built = useMemo(() => {
     if (!live) return null;
@@ -68,7 +121,7 @@ export function ScenePreview({ live, tau, scrubbing, stale }: { live: LiveScene 
   const fresh = built && !(built instanceof Error) ? built : null;
   if (fresh && fresh !== lastGood) setLastGood(fresh);
   const request = fresh ?? lastGood;
-  // the CPU fallback's light frames are scaled up to this box; WebGL frames are always this size
+  // light frames are scaled up to this box
   const fullWidth = live ? frameSizeFor(live.spec.projection, PREVIEW_WIDTH, PREVIEW_HEIGHT).width : PREVIEW_WIDTH;
   const requestError = built instanceof Error ? built.message : null;
   const requestJson = useMemo(() => (request ? JSON.stringify(request) : ''), [request]);
@@ -82,7 +135,7 @@ export function ScenePreview({ live, tau, scrubbing, stale }: { live: LiveScene 
         role="group"
       >
         {request ? (
-          <SkyView request={request} onPathChange={setPath} />
+          <SkyView request={request} onPathChange={setPath} onFrame={webgl.onFrame} displayWidth={fullWidth} />
         ) : (
           <div className="flex aspect-video w-full items-center justify-center rounded-md border border-ink-700 bg-black text-xs text-slate-500">No valid scene to preview yet.</div>
         )}
@@ -92,9 +145,15 @@ export function ScenePreview({ live, tau, scrubbing, stale }: { live: LiveScene 
       <p className="flex flex-wrap justify-between gap-2 text-[11px] text-slate-500" data-testid="preview-status">
         <span>
           {request ? `${request.width}×${request.height}` : 'no frame'}
-          {detail === 'interactive' ? ' · light frame while moving (CPU fallback)' : ''}
+          {detail === 'interactive' ? ` · light frame while moving (${path.kind === 'cpu' ? 'CPU fallback' : 'this browser draws WebGL below 20 frames per second'})` : ''}
         </span>
         {requestError ? <span className="text-danger-400">{requestError}</span> : null}
+        {path.kind === 'webgl' && webgl.slow ? (
+          <label className="flex items-center gap-1.5">
+            <input type="checkbox" data-testid="preview-full-frames" checked={fullFrames} onChange={(e) => setFullFrames(e.target.checked)} className="accent-teal-400" />
+            full-size frames while moving
+          </label>
+        ) : null}
       </p>
     </div>
   );
