@@ -1,66 +1,22 @@
 'use client';
 
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { frameRequestAt, frameSizeFor } from '@/lib/scenes/frame-request';
 import type { FrameRequest } from '@/lib/render/schema';
 import { SkyView, type SkyViewPath } from '@/components/sky-view/sky-view';
 import type { LiveScene } from '../editor/use-live-scene';
+import { useFullFramesChoice, useSlowWebGl } from './light-frames';
 
 /** Display box of the preview, px. Full detail renders at this size (1:1). */
 export const PREVIEW_WIDTH = 640;
 export const PREVIEW_HEIGHT = 360;
 /**
  * Light frames: while scrubbing, playing or typing, the CPU fallback always, and WebGL when it has drawn
- * slower than SLOW_FRAME_MS per frame in motion (software WebGL), render at this fraction of full size and
+ * slowly in motion (light-frames.ts), render at this fraction of full size and
  * are scaled up; the full-detail frame follows when everything rests.
  */
 const INTERACTIVE_SCALE = 0.5;
-/** WebGL frames in motion slower than this (median of the last MOTION_SAMPLES intervals) switch to light frames, ms. */
-const SLOW_FRAME_MS = 50;
-const MOTION_SAMPLES = 8;
-/** localStorage key of the producer's choice to keep WebGL frames full size while moving. */
-const FULL_FRAMES_KEY = 'skywell:preview-full-frames-while-moving';
-
-/** The producer's "full-size frames while moving" choice, kept in this browser. */
-function useFullFramesChoice(): [boolean, (on: boolean) => void] {
-  const [on, setOn] = useState(false);
-  useEffect(() => setOn(window.localStorage.getItem(FULL_FRAMES_KEY) === '1'), []);
-  const choose = useCallback((next: boolean) => {
-    setOn(next);
-    window.localStorage.setItem(FULL_FRAMES_KEY, next ? '1' : '0');
-  }, []);
-  return [on, choose];
-}
-
-/**
- * Watches WebGL frame intervals while `watch` holds (the scrubber moving: dragged or playing) and reports
- * whether full-size frames come slower than SLOW_FRAME_MS. Once slow, it stays so for this editor: the
- * machine's WebGL (software on a computer without a GPU) does not speed up. The median resists a pause in a
- * mouse drag.
- */
-function useSlowWebGl(watch: boolean): { slow: boolean; onFrame: () => void } {
-  const [slow, setSlow] = useState(false);
-  const watching = useRef(false);
-  watching.current = watch && !slow;
-  const last = useRef(0);
-  const intervals = useRef<number[]>([]);
-  const onFrame = useCallback(() => {
-    const now = performance.now();
-    if (!watching.current) {
-      last.current = 0;
-      intervals.current = [];
-      return;
-    }
-    if (last.current > 0) intervals.current.push(now - last.current);
-    last.current = now;
-    if (intervals.current.length < MOTION_SAMPLES) return;
-    intervals.current = intervals.current.slice(-MOTION_SAMPLES);
-    const sorted = [...intervals.current].sort((a, b) => a - b);
-    if ((sorted[MOTION_SAMPLES / 2 - 1] + sorted[MOTION_SAMPLES / 2]) / 2 > SLOW_FRAME_MS) setSlow(true);
-  }, []);
-  return { slow, onFrame };
-}
-/** How long the scrubber and fields must rest before the CPU fallback renders the full-detail frame, ms. */
+/** How long the scrubber and fields must rest before light frames give way to the full-detail frame, ms. */
 const REST_MS = 220;
 
 type Detail = 'interactive' | 'full';
