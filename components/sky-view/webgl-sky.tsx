@@ -50,7 +50,9 @@ function SkyPass({ request, mode, sky, onFrame }: { request: FrameRequest; mode:
     [renderer, request, mode],
   );
   // priority 1: this pass replaces r3f's own scene render
-  useFrame(() => {
+  useFrame((state) => {
+    // a request of a new size waits for r3f to resize the canvas (it invalidates again when it has)
+    if (state.size.width !== request.width || state.size.height !== request.height) return;
     const tableBuildMs = renderer.prepare(request, mode);
     renderer.draw();
     countFrameShown();

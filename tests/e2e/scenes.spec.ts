@@ -214,8 +214,9 @@ test.describe('scene editor', () => {
     expect(light).toMatchObject({ width: full.width / 2, height: full.height / 2 });
     await expect(page.getByTestId('preview-status')).toContainText('light frame while moving');
     expect(Math.abs((await box.boundingBox())!.width - shownWidth)).toBeLessThan(1);
-    // the canvas draws the light frame's own pixels (its drawing buffer is not the box's size)
-    expect(await box.locator('canvas').evaluate((c: HTMLCanvasElement) => [c.width, c.height])).toEqual([light.width, light.height]);
+    // the canvas draws the light frame's own pixels (its drawing buffer is not the box's size; r3f resizes it
+    // just after the request changes)
+    await expect.poll(() => box.locator('canvas').evaluate((c: HTMLCanvasElement) => [c.width, c.height])).toEqual([light.width, light.height]);
 
     // At rest: the full-detail frame again.
     await page.getByTestId('play').click();
