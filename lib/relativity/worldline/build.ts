@@ -365,6 +365,20 @@ function buildChain(spec: WorldlineSpec): { issues: WorldlineIssue[]; worldline:
   };
 }
 
+/**
+ * The segment a chain proper time falls in (the earlier one on a joint) and the time into it.
+ * @param worldline from buildWorldline
+ * @param tau chain proper time in M (the caller checks it lies on the chain)
+ * @returns the segment, its index and the local proper time, clamped to [0, duration]
+ */
+export function locateSegment(worldline: Worldline, tau: number): { seg: BuiltSegment; index: number; local: number } {
+  const segs = worldline.segments;
+  let index = 0;
+  while (index < segs.length - 1 && tau > segs[index].tauStart + segs[index].duration) index++;
+  const seg = segs[index];
+  return { seg, index, local: Math.min(Math.max(tau - seg.tauStart, 0), seg.duration) };
+}
+
 const scratch = new Float64Array(3);
 
 /** State of a built segment at local proper time s (0 <= s <= duration). */

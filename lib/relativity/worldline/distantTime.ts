@@ -9,7 +9,7 @@
  */
 import { requireInRange } from '../validate';
 import type { BuiltSegment, Worldline } from './build';
-import { segmentStateAt } from './build';
+import { locateSegment, segmentStateAt } from './build';
 import type { PathState } from './types';
 
 /** Relative accuracy asked of the quadrature (adaptive Simpson). */
@@ -62,11 +62,8 @@ const wholeSegmentTimes = new WeakMap<Worldline, number[]>();
  */
 export function distantObserverTime(worldline: Worldline, tau: number): number | null {
   requireInRange('tau', tau, 0, worldline.duration, `a proper time in [0, ${worldline.duration}] M`);
+  const { seg, index, local } = locateSegment(worldline, tau);
   const segs = worldline.segments;
-  let index = 0;
-  while (index < segs.length - 1 && tau > segs[index].tauStart + segs[index].duration) index++;
-  const seg = segs[index];
-  const local = Math.min(Math.max(tau - seg.tauStart, 0), seg.duration);
   // a path that reaches r = 2M never comes back out, so the camera's radius now decides
   if (!(segmentStateAt(seg, local, scratch).r > 2)) return null;
   let whole = wholeSegmentTimes.get(worldline);

@@ -7,7 +7,7 @@ import { symmetricEigenvalues3, tidalTensor } from '../tides';
 import { geometricAccelerationToG, geometricTidalToPerSecondSquared, massScale } from '../units';
 import { requireAtLeast, requireInRange } from '../validate';
 import type { Worldline } from './build';
-import { segmentStateAt } from './build';
+import { locateSegment, segmentStateAt } from './build';
 import { cameraTetradPG, decomposeFourVelocity, type FrameDecomposition } from './cameraFrame';
 import { orbitBand } from './orbitBand';
 import type { OrbitBand, PathState } from './types';
@@ -57,11 +57,7 @@ export interface WorldlineSample {
 export function sampleWorldline(worldline: Worldline, tau: number, bodyLengthMetres = 2): WorldlineSample {
   requireInRange('tau', tau, 0, worldline.duration, `a proper time in [0, ${worldline.duration}] M`);
   requireAtLeast('bodyLengthMetres', bodyLengthMetres, 0, 'a length >= 0 in metres');
-  const segs = worldline.segments;
-  let index = 0;
-  while (index < segs.length - 1 && tau > segs[index].tauStart + segs[index].duration) index++;
-  const seg = segs[index];
-  const local = Math.min(Math.max(tau - seg.tauStart, 0), seg.duration);
+  const { seg, index, local } = locateSegment(worldline, tau);
   const state = segmentStateAt(seg, local, { r: 0, azimuth: 0, energy: 0, angularMomentum: 0, ur: 0 });
   // At the singularity itself nothing is defined: sample just before it.
   if (!(state.r > 0)) {
