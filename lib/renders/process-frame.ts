@@ -1,6 +1,7 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
+import type { Worldline } from '@/lib/relativity';
 import { renderFrameToImage, type RenderPool } from '@/lib/render/node/renderFrame';
 import { readoutAt, sceneWorldline } from '@/lib/scenes/readout';
 import { putImmutable } from '@/lib/storage/s3';
@@ -24,21 +25,30 @@ export interface RenderedFrame {
   format: RenderJob['settings']['format'];
   sceneSlug: string;
   spec: SceneRevision['spec'];
+  worldline: Worldline;
   tau: number;
   bytes: Buffer;
   renderMs: number;
 }
 
-// Revisions are immutable, so a worker keeps the few it is rendering (and their scene's slug) in memory.
-const revisionCache = new Map<string, { spec: SceneRevision['spec']; sceneSlug: string }>();
+/** What a worker keeps of a revision it renders: the spec, its built path and the scene's slug. */
+interface CachedRevision {
+  spec: SceneRevision['spec'];
+  worldline: Worldline;
+  sceneSlug: string;
+}
+
+// Revisions are immutable, so a worker keeps the few it is rendering in memory, path built once: every frame
+// reads it three times (frame time, request, readouts), and a free fall's path is an integration.
+const revisionCache = new Map<string, CachedRevision>();
 const REVISION_CACHE_SIZE = 16;
 
-async function revisionOf(job: RenderJob): Promise<{ spec: SceneRevision['spec']; sceneSlug: string } | null> {
+async function revisionOf(job: RenderJob): Promise<CachedRevision | null> {
   const cached = revisionCache.get(job.revisionId);
   if (cached) return cached;
   const [revision, scene] = await Promise.all([SceneRevision.findByPk(job.revisionId), Scene.findByPk(job.sceneId, { attributes: ['slug'] })]);
   if (!revision || !scene) return null;
-  const entry = { spec: revision.spec, sceneSlug: scene.slug };
+  const entry = { spec: revision.spec, worldline: sceneWorldline(revision.spec), sceneSlug: scene.slug };
   if (revisionCache.size >= REVISION_CACHE_SIZE) revisionCache.delete(revisionCache.keys().next().value!);
   revisionCache.set(job.revisionId, entry);
   return entry;
@@ -58,8 +68,8 @@ export async function renderJobFrame(renderJobId: string, index: number, context
 
   const revision = await revisionOf(job);
   if (!revision) return 'skipped-missing';
-  const tau = properTimeOfFrame(revision.spec, index);
-  const request = renderRequestFor(revision.spec, tau, job.settings);
+  const tau = properTimeOfFrame(revision.spec, index, revision.worldline);
+  const request = renderRequestFor(revision.spec, tau, job.settings, revision.worldline);
   const started = performance.now();
   const image = await renderFrameToImage(request, { pool: context.pool, threads: context.pool ? undefined : 0 });
   const renderMs = Math.round(performance.now() - started);
@@ -68,7 +78,7 @@ export async function renderJobFrame(renderJobId: string, index: number, context
   if (!after || after.status === 'cancelled') return 'skipped-cancelled';
   return {
     renderJobId, index, studioId: job.studioId, format: job.settings.format, sceneSlug: revision.sceneSlug,
-    spec: revision.spec, tau, bytes: image.bytes, renderMs,
+    spec: revision.spec, worldline: revision.worldline, tau, bytes: image.bytes, renderMs,
   };
 }
 
@@ -84,7 +94,7 @@ export async function storeRenderedFrame(frame: RenderedFrame, workerName: strin
   const objectKey = frameObjectKey(frame.studioId, frame.renderJobId, fileName);
   await putImmutable(objectKey, frame.bytes, sha256, frame.format === 'jpeg' ? 'image/jpeg' : 'image/png');
 
-  const physics = readoutAt(frame.spec, sceneWorldline(frame.spec), frame.tau);
+  const physics = readoutAt(frame.spec, frame.worldline, frame.tau);
   const readout: FrameReadout = {
     properTimeM: physics.tau, properTimeSeconds: physics.tauSeconds, radiusRs: physics.radiusRs, radiusKm: physics.radiusKm,
     speedRelativeToHover: physics.speedRelativeToHover, shiftMin: physics.shiftRange?.min ?? null, shiftMax: physics.shiftRange?.max ?? null,
