@@ -14,8 +14,8 @@
 //   that render time (queue fetch and completion, database reads, SHA-256, S3
 //   put, readouts; the worker stores a frame while the next one renders).
 import { spawn, type ChildProcess } from 'node:child_process';
-import fs from 'node:fs';
 import os from 'node:os';
+import { machineBusyMs, median, processesWhere, processStat } from './support/process-stats';
 import { createScene, createShow } from '@/lib/scenes/service';
 import { requestRender } from '@/lib/renders/service';
 import { stopQueue } from '@/lib/queue/boss';
@@ -43,41 +43,14 @@ function startWorker(name: string): Promise<ChildProcess> {
   });
 }
 
-/** CPU milliseconds the whole machine has spent busy (Linux /proc/stat; user, nice, system, irq, softirq, steal). */
-function machineBusyMs(): number {
-  const fields = fs.readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
-  const [user, nice, system, , , irq, softirq, steal] = fields;
-  return ((user + nice + system + irq + softirq + steal) * 1000) / 100;
-}
-
-/**
- * CPU milliseconds a process has used (user + system, all threads; Linux /proc), plus, with `reaped`, that of
- * its children that have ended (how PostgreSQL's exited backends stay counted, through the postmaster).
- */
-function processCpuMs(pid: number | undefined, reaped = false): number {
-  try {
-    const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
-    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ').map(Number);
-    return ((fields[11] + fields[12] + (reaped ? fields[13] + fields[14] : 0)) * 1000) / 100;
-  } catch {
-    return 0;
-  }
-}
-
-/** CPU milliseconds used so far by the database (postgres processes) and the S3 fake (s3rver). */
+/** CPU milliseconds used so far by the database (postgres processes, ended backends included) and the S3 fake. */
 function servicesCpuMs(): { databaseMs: number; objectStoreMs: number } {
-  let databaseMs = 0;
-  let objectStoreMs = 0;
-  for (const pid of fs.readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
-    try {
-      const cmdline = fs.readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-      if (cmdline.startsWith('postgres')) databaseMs += processCpuMs(Number(pid), true);
-      else if (cmdline.includes('s3rver')) objectStoreMs += processCpuMs(Number(pid));
-    } catch {
-      // the process ended meanwhile
-    }
-  }
-  return { databaseMs, objectStoreMs };
+  const total = (pids: number[], reaped: boolean) =>
+    pids.reduce((sum, pid) => {
+      const stat = processStat(pid);
+      return sum + (stat ? stat.cpuMs + (reaped ? stat.reapedMs : 0) : 0);
+    }, 0);
+  return { databaseMs: total(processesWhere((c) => c.startsWith('postgres')), true), objectStoreMs: total(processesWhere((c) => c.includes('s3rver')), false) };
 }
 
 /** A reading of the CPU counters at one moment. */
@@ -118,16 +91,11 @@ interface Run {
   deliveryAfterS: number;
 }
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
-}
-
 async function runOnce(workers: number, studioId: string, userId: string, sceneId: string): Promise<Run> {
   const procs = await Promise.all(Array.from({ length: workers }, (_, i) => startWorker(`bench-${workers}-${i}`)));
   const job = await requestRender(studioId, userId, { sceneId, revision: 1, kind: 'sequence', frames: { start: 0, end: FRAMES - 1 }, settings: { width: SIDE, height: SIDE, format: 'png8', supersampling: 1 } });
   const samples: CpuSample[] = [];
-  const sample = () => samples.push({ at: Date.now(), machineMs: machineBusyMs(), workersMs: procs.reduce((sum, p) => sum + processCpuMs(p.pid), 0), ...servicesCpuMs(), benchMs: processCpuMs(process.pid) });
+  const sample = () => samples.push({ at: Date.now(), machineMs: machineBusyMs(), workersMs: procs.reduce((sum, p) => sum + (processStat(p.pid)?.cpuMs ?? 0), 0), ...servicesCpuMs(), benchMs: processStat(process.pid)?.cpuMs ?? 0 });
   for (;;) {
     sample();
     const current = await RenderJob.findByPk(job.id, { attributes: ['status', 'framesDone'] });

@@ -25,6 +25,7 @@ import { encodeBrightnessMap } from '../../lib/webgl/skyAssetFormat';
 import { parseFrameRequest, type FrameRequest } from '../../lib/render/schema';
 import { prepareFrame } from '../../lib/render/frame';
 import { renderBandEncoded } from '../../lib/render/renderRows';
+import { median, processesWhere, processStat } from './support/process-stats';
 
 const root = path.resolve(__dirname, '..', '..');
 const outDir = path.join(root, '.data', 'bench', 'webgl');
@@ -144,39 +145,18 @@ function moveRequests(width: number, height: number, frames: number, dome = fals
   );
 }
 
-/** Parent pid and user + system CPU seconds of a process (Linux /proc). */
-function procStat(pid: string): { parent: number; seconds: number } {
-  const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
-  const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-  // after the command: [1] parent pid, [11] user and [12] system time in clock ticks (100 per second)
-  return { parent: Number(fields[1]), seconds: (Number(fields[11]) + Number(fields[12])) / 100 };
-}
-
 /** CPU seconds used so far by the GPU process of the browser this script launched (Linux /proc; 0 where unavailable). */
 function gpuProcessCpuSeconds(): number {
-  let total = 0;
-  try {
-    for (const pid of fs.readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
-      try {
-        if (!fs.readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('--type=gpu-process')) continue;
-        const gpu = procStat(pid);
-        // a descendant of this script (GPU process -> zygote -> browser -> this script)
-        let ancestor = gpu.parent;
-        for (let up = 0; up < 4 && ancestor > 1 && ancestor !== process.pid; up++) ancestor = procStat(String(ancestor)).parent;
-        if (ancestor === process.pid) total += gpu.seconds;
-      } catch {
-        // the process ended meanwhile
-      }
-    }
-  } catch {
-    return 0;
+  let totalMs = 0;
+  for (const pid of processesWhere((cmdline) => cmdline.includes('--type=gpu-process'))) {
+    const gpu = processStat(pid);
+    if (!gpu) continue;
+    // a descendant of this script (GPU process -> zygote -> browser -> this script)
+    let ancestor = gpu.parent;
+    for (let up = 0; up < 4 && ancestor > 1 && ancestor !== process.pid; up++) ancestor = processStat(ancestor)?.parent ?? 0;
+    if (ancestor === process.pid) totalMs += gpu.cpuMs;
   }
-  return total;
-}
-
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+  return totalMs / 1000;
 }
 
 function differenceStats(a: ArrayLike<number>, b: Uint8Array): { mean: number; p99: number } {
