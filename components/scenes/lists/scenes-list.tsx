@@ -2,11 +2,9 @@
 
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import { NameForm } from './name-form';
-import { ArchivableList } from './archivable-list';
+import { ArchivableList, useArchivable } from './archivable-list';
 
 type Scene = { id: string; name: string; slug: string; archived: boolean; latestRevision: number; updatedAt: string };
 
@@ -15,17 +13,13 @@ const dateFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeS
 /** A show's scenes; a new scene opens straight in the editor. */
 export function ScenesList({ studio, showId, canWrite }: { studio: string; showId: string; canWrite: boolean }) {
   const router = useRouter();
-  const queryClient = useQueryClient();
-  const [showArchived, setShowArchived] = useState(false);
   const base = `/api/v1/studios/${studio}/shows/${showId}/scenes`;
-  const scenes = useQuery({
-    queryKey: ['studio', studio, 'show', showId, 'scenes', showArchived],
-    queryFn: () => apiFetch<{ scenes: Scene[] }>(`${base}${showArchived ? '?archived=include' : ''}`),
-  });
-  const refresh = () => queryClient.invalidateQueries({ queryKey: ['studio', studio, 'show', showId] });
-  const archive = useMutation({
-    mutationFn: (scene: Scene) => apiFetch(`/api/v1/studios/${studio}/scenes/${scene.id}`, { method: 'PATCH', body: { archived: !scene.archived } }),
-    onSettled: refresh,
+  const { state, refresh } = useArchivable<Scene, { scenes: Scene[] }>({
+    queryKey: ['studio', studio, 'show', showId, 'scenes'],
+    refreshKey: ['studio', studio, 'show', showId],
+    listUrl: base,
+    pick: (response) => response.scenes,
+    itemUrl: (scene) => `/api/v1/studios/${studio}/scenes/${scene.id}`,
   });
   const editorHref = (id: string) => `/studios/${studio}/shows/${showId}/scenes/${id}`;
 
@@ -43,21 +37,7 @@ export function ScenesList({ studio, showId, canWrite }: { studio: string; showI
           }}
         />
       ) : null}
-      <ArchivableList
-        plural="scenes"
-        items={scenes.data?.scenes}
-        loading={scenes.isPending}
-        error={scenes.isError ? scenes.error.message : null}
-        empty="No scenes in this show yet."
-        testId="scenes-list"
-        itemTestId={(scene) => `scene-${scene.slug}`}
-        showArchived={showArchived}
-        onShowArchived={setShowArchived}
-        canWrite={canWrite}
-        onToggleArchive={(scene) => archive.mutate(scene)}
-        archiving={archive.isPending}
-        archiveError={archive.isError ? archive.error.message : null}
-      >
+      <ArchivableList plural="scenes" state={state} empty="No scenes in this show yet." testId="scenes-list" itemTestId={(scene) => `scene-${scene.slug}`} canWrite={canWrite}>
         {(scene) => (
           <>
             <Link href={editorHref(scene.id)} className="font-medium text-slate-200 hover:text-teal-300">{scene.name}</Link>
