@@ -10,6 +10,14 @@ export interface PlotInsets {
   bottom: number;
 }
 
+/** Plot-area insets of the wide charts (orbit bands, potential): margins (top 6, right 12), y-axis 44 px, x-axis 30 px. */
+export const WIDE_CHART_INSETS: PlotInsets = { left: 44, right: 12, top: 6, bottom: 34 };
+
+/** Screen-time span of a sampled shot, s: the first and last samples' (0..1 when there are none). */
+export function screenSpan(points: readonly { screenTime: number }[]): [number, number] {
+  return [points[0]?.screenTime ?? 0, points[points.length - 1]?.screenTime ?? 1];
+}
+
 /** Position of v between lo and hi on a linear axis, 0..1 (clamped). */
 export function linearFraction(v: number, lo: number, hi: number): number {
   return hi > lo && Number.isFinite(v) ? Math.min(Math.max((v - lo) / (hi - lo), 0), 1) : 0;

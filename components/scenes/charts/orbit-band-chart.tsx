@@ -1,10 +1,10 @@
 'use client';
 
-import { memo } from 'react';
+import { memo, useMemo } from 'react';
 import { CartesianGrid, Line, LineChart, ReferenceArea, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { TimelinePoint } from '../analysis/timeline';
 import { AXIS, BAND_COLOURS, BAND_LIMITS_RS, GRID, LINE, decadeTicks, logTick } from './chart-theme';
-import { ChartCursor, linearFraction, logFraction } from './chart-cursor';
+import { ChartCursor, WIDE_CHART_INSETS, linearFraction, logFraction, screenSpan } from './chart-cursor';
 
 /** Radius axis of the chart: log scale from below the horizon to above the path's highest point, r_s. */
 function radiusDomain(points: TimelinePoint[]): [number, number] {
@@ -17,25 +17,25 @@ function radiusDomain(points: TimelinePoint[]): [number, number] {
  * on bands coloured teal -> blue -> indigo -> near-black, with the current moment marked.
  */
 export function OrbitBandChart({ points, screenTime, radiusRs, onPick }: { points: TimelinePoint[]; screenTime: number; radiusRs: number | null; onPick: (screenTime: number) => void }) {
-  const [lo, hi] = radiusDomain(points);
-  const start = points[0]?.screenTime ?? 0;
-  const end = points[points.length - 1]?.screenTime ?? 1;
+  // the axes change with the path, not with the moment, which moves on every frame of a scrub
+  const domain = useMemo(() => radiusDomain(points), [points]);
+  const [lo, hi] = domain;
+  const [start, end] = screenSpan(points);
   return (
     <figure className="space-y-1" data-testid="orbit-band-chart">
       <figcaption className="text-xs font-medium text-slate-300">Where the camera is: radius against screen time, over the orbit bands</figcaption>
       <div className="relative h-56 [contain:strict]">
-        <OrbitBandPlot points={points} onPick={onPick} />
-        <ChartCursor insets={{ left: 44, right: 12, top: 6, bottom: 34 }} x={linearFraction(screenTime, start, end)} y={radiusRs !== null ? logFraction(Math.max(radiusRs, lo), lo, hi) : null} />
+        <OrbitBandPlot points={points} domain={domain} onPick={onPick} />
+        <ChartCursor insets={WIDE_CHART_INSETS} x={linearFraction(screenTime, start, end)} y={radiusRs !== null ? logFraction(Math.max(radiusRs, lo), lo, hi) : null} />
       </div>
     </figure>
   );
 }
 
 /** The chart itself, re-rendered only when the path changes. */
-const OrbitBandPlot = memo(function OrbitBandPlot({ points, onPick }: { points: TimelinePoint[]; onPick: (screenTime: number) => void }) {
-  const [lo, hi] = radiusDomain(points);
-  const start = points[0]?.screenTime ?? 0;
-  const end = points[points.length - 1]?.screenTime ?? 1;
+const OrbitBandPlot = memo(function OrbitBandPlot({ points, domain, onPick }: { points: TimelinePoint[]; domain: [number, number]; onPick: (screenTime: number) => void }) {
+  const [lo, hi] = domain;
+  const [start, end] = screenSpan(points);
   const bands = [
     { name: 'stable orbits' as const, y1: BAND_LIMITS_RS.isco, y2: hi },
     { name: 'unstable orbits' as const, y1: BAND_LIMITS_RS.photonSphere, y2: BAND_LIMITS_RS.isco },

@@ -3,7 +3,7 @@
 import { memo, useMemo } from 'react';
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, XAxis, YAxis } from 'recharts';
 import { AXIS, BAND_COLOURS, BAND_LIMITS_RS, CURSOR, GRID, TEAL, logTick } from './chart-theme';
-import { ChartCursor, linearFraction, logFraction } from './chart-cursor';
+import { ChartCursor, WIDE_CHART_INSETS, linearFraction, logFraction } from './chart-cursor';
 
 const LO_RS = 0.9;
 
@@ -28,7 +28,7 @@ export function PotentialChart({ radiusM, energy, angularMomentum, maxRadiusM, h
       </figcaption>
       <div className="relative h-48 [contain:strict]">
         <PotentialPlot data={curve} hiRs={hiRs} e2={e2} yLo={yLo} yHi={yHi} />
-        <ChartCursor insets={{ left: 44, right: 12, top: 6, bottom: 34 }} line={false} x={logFraction(Math.max(radiusM / 2, LO_RS), LO_RS, hiRs)} y={linearFraction(Math.min(Math.max(e2, yLo), yHi), yLo, yHi)} />
+        <ChartCursor insets={WIDE_CHART_INSETS} line={false} x={logFraction(Math.max(radiusM / 2, LO_RS), LO_RS, hiRs)} y={linearFraction(Math.min(Math.max(e2, yLo), yHi), yLo, yHi)} />
       </div>
     </figure>
   );

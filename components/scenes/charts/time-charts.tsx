@@ -8,7 +8,7 @@ import type { TimelinePoint } from '../analysis/timeline';
 import { formatDuration } from '../editor/format';
 import { AXIS, GRID, TEAL, VIOLET, decadeTicks, logTick, positive } from './chart-theme';
 import { pick } from './orbit-band-chart';
-import { ChartCursor, linearFraction } from './chart-cursor';
+import { ChartCursor, linearFraction, screenSpan } from './chart-cursor';
 
 /** Plot-area insets of the small charts: margins (top 6, right 10), y-axis 48 px, x-axis 30 px. */
 const SMALL_CHART_INSETS = { left: 48, right: 10, top: 6, bottom: 30 };
@@ -36,8 +36,7 @@ const tooltip = { contentStyle: { background: '#0a0e17', border: '1px solid #3b4
 
 /** Countdown, tidal stretch, shift range and look turn rate against screen time: the descent as pictures. */
 export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoint[]; screenTime: number; onPick: (screenTime: number) => void }) {
-  const start = points[0]?.screenTime ?? 0;
-  const end = points[points.length - 1]?.screenTime ?? 1;
+  const [start, end] = screenSpan(points);
   // the cursor moves through a CSS variable; the charts re-render only when the path changes
   return (
     <div style={{ '--chart-cursor-x': linearFraction(screenTime, start, end) } as CSSProperties}>
@@ -47,8 +46,7 @@ export function TimeCharts({ points, screenTime, onPick }: { points: TimelinePoi
 }
 
 const TimeChartPlots = memo(function TimeChartPlots({ points, onPick }: { points: TimelinePoint[]; onPick: (screenTime: number) => void }) {
-  const start = points[0]?.screenTime ?? 0;
-  const end = points[points.length - 1]?.screenTime ?? 1;
+  const [start, end] = screenSpan(points);
   const x = { dataKey: 'screenTime', type: 'number' as const, domain: [start, end], ...AXIS, tickFormatter: (v: number) => `${Math.round(v)} s` };
   const data = points.map((p) => ({
     screenTime: p.screenTime,
