@@ -1,6 +1,6 @@
 import { expect, type Page } from '@playwright/test';
 import { SignInPage } from './pages/sign-in-page';
-import { SceneEditorPage } from './pages/scene-editor-page';
+import { SceneEditorPage, type PreviewFrame } from './pages/scene-editor-page';
 import { DEMO_PASSWORD, DEMO_STUDIO_SLUG, demoEmail, skipHiddenStreamCopies, test } from './support';
 import { defaultSceneSpec } from '../../lib/scenes/defaults';
 import { sceneSpecSchema } from '../../lib/scenes/schema';
@@ -27,6 +27,18 @@ async function openDemoShow(page: Page) {
   await page.goto(`/studios/${DEMO_STUDIO_SLUG}/shows`);
   await page.getByRole('link', { name: 'The Long Fall' }).first().click();
   await expect(page.getByTestId('show-name')).toHaveText('The Long Fall', { timeout: 120_000 });
+}
+
+/** Signs a producer in and opens the demo's drop shot, waiting for its first full frame on the WebGL path. */
+async function openDropSceneAsProducer(page: Page): Promise<{ editor: SceneEditorPage; first: PreviewFrame }> {
+  await signIn(page, 'producer');
+  await openDemoShow(page);
+  await page.getByRole('link', { name: 'Drop through the horizon', exact: true }).click();
+  await expect(page.getByTestId('scene-title')).toHaveText('Drop through the horizon', { timeout: 180_000 });
+  const editor = new SceneEditorPage(page);
+  const first = await editor.waitForFullFrame();
+  expect(first.path).toBe('webgl');
+  return { editor, first };
 }
 
 /**
@@ -192,13 +204,7 @@ test.describe('scene editor', () => {
   });
 
   test('should play with half-size WebGL frames when full ones come slower than 20 per second, full detail at rest, unless asked for full frames', async ({ page }) => {
-    await signIn(page, 'producer');
-    await openDemoShow(page);
-    await page.getByRole('link', { name: 'Drop through the horizon', exact: true }).click();
-    await expect(page.getByTestId('scene-title')).toHaveText('Drop through the horizon', { timeout: 180_000 });
-    const editor = new SceneEditorPage(page);
-    const rested = await editor.waitForFullFrame();
-    expect(rested.path).toBe('webgl');
+    const { editor, first: rested } = await openDropSceneAsProducer(page);
     const full = { width: rested.request.width as number, height: rested.request.height as number };
     const box = page.getByTestId('sky-view-webgl');
     const shownWidth = (await box.boundingBox())!.width;
@@ -234,13 +240,7 @@ test.describe('scene editor', () => {
   test('should fall back to the CPU renderer when WebGL is lost, with light frames while scrubbing and full detail at rest', async ({ page }) => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    await signIn(page, 'producer');
-    await openDemoShow(page);
-    await page.getByRole('link', { name: 'Drop through the horizon', exact: true }).click();
-    await expect(page.getByTestId('scene-title')).toHaveText('Drop through the horizon', { timeout: 180_000 });
-    const editor = new SceneEditorPage(page);
-    const first = await editor.waitForFullFrame();
-    expect(first.path).toBe('webgl');
+    const { editor, first } = await openDropSceneAsProducer(page);
 
     // The same loss a driver reset causes: the view must switch to lib/render in a worker without a reload.
     await page.evaluate(() => {
