@@ -9,12 +9,9 @@ import { Canvas, useFrame, useThree } from '@react-three/fiber';
 import type { FrameRequest } from '@/lib/render/schema';
 import { GpuSkyRenderer, type SkyViewMode } from './gpu/gpu-sky-renderer';
 import type { GpuSkyData } from './gpu/sky-data';
-import { loadGpuSkyData } from './gpu/sky-data-client';
+import { cachedGpuSkyData, loadGpuSkyData } from './gpu/sky-data-client';
 import { countFrameShown, publishDebugHandle, toBase64 } from './debug-handle';
 
-/** Sky data already built, by asset base and magnitude limit (a few, since each holds ~50 MB of textures). */
-const skyDataCache = new Map<string, GpuSkyData>();
-const SKY_DATA_CACHE_SIZE = 3;
 /** How long a changed magnitude limit must rest before its sky data is built, ms. */
 const LIMIT_REST_MS = 300;
 
@@ -68,8 +65,7 @@ export function WebGlSky({ request, mode, assetBase, onFailure, onFrame, display
   const hasSky = sky !== null;
   useEffect(() => {
     let live = true;
-    const key = `${assetBase}|${limit}`;
-    const cached = skyDataCache.get(key);
+    const cached = cachedGpuSkyData(assetBase, limit);
     if (cached) {
       setSky(cached);
       return;
@@ -79,12 +75,7 @@ export function WebGlSky({ request, mode, assetBase, onFailure, onFrame, display
     const timer = setTimeout(
       () =>
         loadGpuSkyData(assetBase, limit).then(
-          (built) => {
-            if (!live) return;
-            if (skyDataCache.size >= SKY_DATA_CACHE_SIZE) skyDataCache.delete(skyDataCache.keys().next().value!);
-            skyDataCache.set(key, built);
-            setSky(built);
-          },
+          (built) => live && setSky(built),
           (error: unknown) => live && onFailure(`sky data could not be loaded (${error instanceof Error ? error.message : String(error)})`),
         ),
       hasSky ? LIMIT_REST_MS : 0,

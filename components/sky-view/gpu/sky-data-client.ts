@@ -1,10 +1,15 @@
 /**
  * GPU sky data built in a Web Worker (sky-data.worker.ts), so the page stays
- * responsive while the star tiles are built. Falls back to building on this
- * thread where workers are unavailable or the worker fails.
+ * responsive while the star tiles are built, and kept for the few magnitude
+ * limits last used. Falls back to building on this thread where workers are
+ * unavailable or the worker fails.
  */
-import { buildGpuSkyData, type GpuSkyData } from './sky-data';
-import { loadSkyAssets } from '../sky-assets';
+import { loadAndBuildGpuSkyData, type GpuSkyData } from './sky-data';
+
+/** Sky data already built, by asset base and magnitude limit (a few, since each holds ~50 MB of textures). */
+const built = new Map<string, GpuSkyData>();
+const BUILT_KEPT = 3;
+const keyOf = (base: string, limit: number) => `${base}|${limit}`;
 
 let worker: Worker | null = null;
 let nextId = 1;
@@ -34,23 +39,32 @@ function skyDataWorker(): Worker | null {
   return worker;
 }
 
-async function buildHere(base: string, limit: number): Promise<GpuSkyData> {
-  const assets = await loadSkyAssets(base);
-  return buildGpuSkyData(assets.catalogue, assets.milkyWay, limit);
+/** The sky data of a magnitude limit when it has been built already (no waiting). */
+export function cachedGpuSkyData(base: string, limit: number): GpuSkyData | undefined {
+  return built.get(keyOf(base, limit));
 }
 
-/**
- * The GPU sky data for a magnitude limit.
- * @param base sky-assets URL (made absolute for the worker)
- * @param limit faintest star magnitude drawn
- */
-export function loadGpuSkyData(base: string, limit: number): Promise<GpuSkyData> {
-  const absolute = new URL(base, window.location.href).href;
+function build(absolute: string, limit: number): Promise<GpuSkyData> {
   const w = skyDataWorker();
-  if (!w) return buildHere(absolute, limit);
+  if (!w) return loadAndBuildGpuSkyData(absolute, limit);
   const id = nextId++;
   return new Promise<GpuSkyData>((resolve, reject) => {
     pending.set(id, { resolve, reject });
     w.postMessage({ id, base: absolute, limit });
-  }).catch(() => buildHere(absolute, limit));
+  }).catch(() => loadAndBuildGpuSkyData(absolute, limit));
+}
+
+/**
+ * The GPU sky data for a magnitude limit, from the cache or built (and then kept).
+ * @param base sky-assets URL (made absolute for the worker)
+ * @param limit faintest star magnitude drawn
+ */
+export async function loadGpuSkyData(base: string, limit: number): Promise<GpuSkyData> {
+  const key = keyOf(base, limit);
+  const hit = built.get(key);
+  if (hit) return hit;
+  const data = await build(new URL(base, window.location.href).href, limit);
+  if (built.size >= BUILT_KEPT) built.delete(built.keys().next().value!);
+  built.set(key, data);
+  return data;
 }

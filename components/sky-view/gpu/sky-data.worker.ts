@@ -4,15 +4,13 @@
  * Request: { id, base (absolute sky-assets URL), limit (magnitude) };
  * reply: { id, data } with the typed arrays transferred, or { id, error }.
  */
-import { buildGpuSkyData } from './sky-data';
-import { loadSkyAssets } from '../sky-assets';
+import { loadAndBuildGpuSkyData } from './sky-data';
 import { transferablesOf } from './transferables';
 
 self.onmessage = async (event: MessageEvent<{ id: number; base: string; limit: number }>) => {
   const { id, base, limit } = event.data;
   try {
-    const assets = await loadSkyAssets(base);
-    const data = buildGpuSkyData(assets.catalogue, assets.milkyWay, limit);
+    const data = await loadAndBuildGpuSkyData(base, limit);
     (self as unknown as Worker).postMessage({ id, data }, transferablesOf(data));
   } catch (error) {
     (self as unknown as Worker).postMessage({ id, error: error instanceof Error ? error.message : String(error) });
