@@ -13,10 +13,12 @@ interface CpuSkyProps {
   request: FrameRequest;
   mode: SkyViewMode;
   assetBase: string;
+  /** width to show frames at, px (default: the request's); the canvas scales whatever size it last drew */
+  displayWidth?: number;
 }
 
 /** The lensed sky rendered by lib/render in a worker. */
-export function CpuSky({ request, mode, assetBase }: CpuSkyProps) {
+export function CpuSky({ request, mode, assetBase, displayWidth }: CpuSkyProps) {
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const clientRef = useRef<CpuSkyClient | null>(null);
   const [last, setLast] = useState<CpuFrame | null>(null);
@@ -73,8 +75,8 @@ export function CpuSky({ request, mode, assetBase }: CpuSkyProps) {
   );
 
   return (
-    <div style={{ width: request.width, height: request.height }} className="relative" data-testid="sky-view-cpu" data-ready={last && !busy ? 'true' : 'false'}>
-      <canvas ref={canvasRef} width={request.width} height={request.height} className="block" aria-label="Lensed sky, rendered on the CPU" />
+    <div style={{ width: displayWidth ?? request.width }} className="relative" data-testid="sky-view-cpu" data-ready={last && !busy ? 'true' : 'false'}>
+      <canvas ref={canvasRef} width={request.width} height={request.height} className="block h-auto w-full" aria-label="Lensed sky, rendered on the CPU" />
       {busy && <p className="absolute left-2 top-2 rounded bg-ink-950/80 px-2 py-1 text-xs text-slate-300">Rendering on the CPU…</p>}
       {error && (
         <p role="alert" className="absolute inset-x-2 top-2 rounded bg-ink-950/90 px-2 py-1 text-xs text-danger-400">

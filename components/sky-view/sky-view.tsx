@@ -29,7 +29,7 @@ export interface SkyViewProps {
   onPathChange?: (path: SkyViewPath) => void;
   /** called after each frame the WebGL path draws */
   onFrame?: () => void;
-  /** width the frame is shown at, px: a smaller request is scaled up to it (default: the request's width) */
+  /** width frames are shown at, px, on either path: a smaller request is scaled up to it (default: the request's width) */
   displayWidth?: number;
 }
 
@@ -49,7 +49,7 @@ export function SkyView({ request, mode = 'image', forceCpu = false, assetBase =
     <div className="space-y-2" data-testid="sky-view">
       <div className="overflow-hidden rounded-md border border-ink-700 bg-black">
         {path.kind === 'webgl' && <WebGlSky request={request} mode={mode} assetBase={assetBase} onFailure={fallBack} onFrame={onFrame} displayWidth={displayWidth} />}
-        {path.kind === 'cpu' && <CpuSky request={request} mode={mode} assetBase={assetBase} />}
+        {path.kind === 'cpu' && <CpuSky request={request} mode={mode} assetBase={assetBase} displayWidth={displayWidth} />}
         {path.kind === 'detecting' && <div style={{ width: request.width, height: request.height }} />}
       </div>
       <PathIndicator path={path} />

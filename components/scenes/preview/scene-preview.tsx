@@ -85,7 +85,7 @@ export function ScenePreview({ live, tau, scrubbing, stale }: { live: LiveScene 
   return (
     <div className="space-y-1">
       <div
-        className={`relative max-w-full overflow-x-auto ${stale ? 'opacity-60' : ''} [&_[data-testid=sky-view-cpu]]:!h-auto [&_[data-testid=sky-view-cpu]]:!w-full [&_[data-testid=sky-view-cpu]_canvas]:h-auto [&_[data-testid=sky-view-cpu]_canvas]:w-full`}
+        className={`relative max-w-full overflow-x-auto ${stale ? 'opacity-60' : ''}`}
         style={{ width: fullWidth }}
         aria-label="Live preview of the camera's view"
         role="group"
