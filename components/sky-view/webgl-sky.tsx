@@ -11,6 +11,7 @@ import { GpuSkyRenderer, type SkyViewMode } from './gpu/gpu-sky-renderer';
 import type { GpuSkyData } from './gpu/sky-data';
 import { cachedGpuSkyData, loadGpuSkyData } from './gpu/sky-data-client';
 import { countFrameShown, publishDebugHandle, toBase64 } from './debug-handle';
+import { WebGlFailureBoundary } from './webgl-failure-boundary';
 
 /** How long a changed magnitude limit must rest before its sky data is built, ms. */
 const LIMIT_REST_MS = 300;
@@ -92,22 +93,24 @@ export function WebGlSky({ request, mode, assetBase, onFailure, onFrame, display
     <div style={{ width: request.width * scale, height: request.height * scale }} data-testid="sky-view-webgl" data-ready={sky && sky.magnitudeLimit === limit ? 'true' : 'false'}>
       <div style={{ width: request.width, height: request.height, transform: scale === 1 ? undefined : `scale(${scale})`, transformOrigin: '0 0' }}>
         {sky ? (
-          <Canvas
-            frameloop="demand"
-            dpr={1}
-            flat
-            linear
-            resize={{ offsetSize: true }}
-            gl={{ antialias: false, alpha: false, preserveDrawingBuffer: true, powerPreference: 'high-performance' }}
-            onCreated={({ gl }) => {
-              gl.domElement.addEventListener('webglcontextlost', (event) => {
-                event.preventDefault();
-                onFailure('the WebGL context was lost');
-              });
-            }}
-          >
-            <SkyPass request={request} mode={mode} sky={sky} onFrame={onFrame} />
-          </Canvas>
+          <WebGlFailureBoundary onFailure={onFailure}>
+            <Canvas
+              frameloop="demand"
+              dpr={1}
+              flat
+              linear
+              resize={{ offsetSize: true }}
+              gl={{ antialias: false, alpha: false, preserveDrawingBuffer: true, powerPreference: 'high-performance' }}
+              onCreated={({ gl }) => {
+                gl.domElement.addEventListener('webglcontextlost', (event) => {
+                  event.preventDefault();
+                  onFailure('the WebGL context was lost');
+                });
+              }}
+            >
+              <SkyPass request={request} mode={mode} sky={sky} onFrame={onFrame} />
+            </Canvas>
+          </WebGlFailureBoundary>
         ) : (
           <p className="p-4 text-sm text-slate-400">Loading sky data…</p>
         )}
