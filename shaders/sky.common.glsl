@@ -23,7 +23,8 @@
 //   uSegHi[j]         vec4   upper psi bounds (rad) of segments 4j..4j+3; 1e30 for the last segment and unused ones
 //   uSegA[i]          vec4   (map 0 uniform / 1 log from left / 2 log to right, psi_hi rad, anchor rad, fate)
 //   uSegB[i]          vec4   (t0, dt, node offset, node count) of the sampling variable t (psi or ln|psi - anchor|)
-//   uRayTable         sampler2D RG float: (phi rad, dphi/dt) per node, RAY_TABLE_WIDTH texels per row
+//   uRayTable         sampler2D RGBA float: (phi rad, dphi/dt) of node i and of node i + 1 in texel i,
+//                     RAY_TABLE_WIDTH texels per row (lib/webgl/rayTableTexture.ts packRayTable)
 //
 // Mirrors: lib/render/projections.ts createProjector (pixelToView), lib/render/orientation.ts,
 // lib/relativity/boost.ts boostLookDirection, lib/relativity/rayTable.ts RayTable.lookup,
@@ -118,13 +119,14 @@ float boostLook(inout vec3 n, vec3 v) {
   return 1.0 / energy;
 }
 
-// node i of the table, RAY_TABLE_WIDTH per row (shift and mask: software GPUs divide integers lane by lane)
-vec2 rayNode(int i) {
-  return texelFetch(uRayTable, ivec2(i & (RAY_TABLE_WIDTH - 1), i >> RAY_TABLE_WIDTH_LOG2), 0).rg;
+// nodes i and i + 1 of the table, RAY_TABLE_WIDTH per row (shift and mask: software GPUs divide integers lane
+// by lane; one fetch, as each texel carries the next node too)
+vec4 rayNodes(int i) {
+  return texelFetch(uRayTable, ivec2(i & (RAY_TABLE_WIDTH - 1), i >> RAY_TABLE_WIDTH_LOG2), 0);
 }
 
 // RayTable.lookup: fate, phi and dphi/dpsi at look angle psi (cubic Hermite in the segment's variable t).
-// Written without loops or branches (one log, two node fetches), see the note on SwiftShader above.
+// Written without loops or branches (one log, one texel fetch), see the note on SwiftShader above.
 void lookupRayTable(float psi, out float fate, out float phi, out float dPhiDPsi) {
   // segment: how many upper bounds lie below psi (the bounds rise; the last segment's and unused ones are 1e30)
   vec4 p4 = vec4(psi);
@@ -142,8 +144,9 @@ void lookupRayTable(float psi, out float fate, out float phi, out float dPhiDPsi
   float dtDpsi = uniformMap ? 1.0 : side / d;
   float x = (t - t0) / dt;
   int i = clamp(int(floor(x)), 0, count - 2);
-  vec2 n0 = rayNode(offset + i);
-  vec2 n1 = rayNode(offset + i + 1);
+  vec4 nodes = rayNodes(offset + i);
+  vec2 n0 = nodes.xy;
+  vec2 n1 = nodes.zw;
   float dPhiDt;
   if (x <= 0.0) {
     // beyond the closest node to a crossing phi is linear in ln(distance) (Bozza 2002)

@@ -2,6 +2,12 @@
 // grids, optional celestial grid ("where the light comes from"), exposure, tone mapping, sRGB encoding.
 // Mirrors: lib/render/shade.ts Shader.shade and lib/render/renderRows.ts renderBandLinear (+ toneMap.ts),
 // with lib/webgl/sourceDirections.ts compositeCelestialGrid for the celestial grid.
+// Two steps are cheaper approximations of lib/render's, for software WebGL (SwiftShader), where every
+// texture lookup and transcendental costs each pixel: the sources of a pixel are coloured by ONE blackbody
+// lookup at their luminance-weighted mean ln T (lib/render sums one coloured lookup per source; the two agree
+// exactly where one source dominates a pixel, as almost everywhere), and the sRGB curve is a three-square-root
+// fit. Against lib/render the frame differs by a mean of about 0.1/255 and a 99th percentile of 1/255
+// (tests/e2e/sky-view.spec.ts; the issue allows 2/255 and 10/255).
 //
 // Compile-time switches (besides those of sky.common.glsl; lib/webgl/shaderVariant.ts):
 //   SAMPLES             samples per axis (1..4), box filter
@@ -19,13 +25,14 @@
 //   uColourLogMinK      float   ln T of the first entry (ln K);  uColourEntries float  entries in the table
 //   uColourIndexPerLog  float   table entries per unit of ln T
 //   uStarGain float;  uPsfSigmaPx float (pixels);  uSourceSizeRad float (radians)
-//   uStarTiles          sampler2D RG float: (first entry, entry count) of each cube-map tile, the levels one
-//                       below the other (lib/webgl/starTiles.ts StarTileIndex)
-//   uStarTileEntries    sampler2D RGBA float: unit vector and flux of the star of each list entry, 1024 wide
-//   uStarTileEntryLogT  sampler2D R float: ln(T / 1 K) of the star of each entry, 1024 wide
+//   uStarTiles          usampler2D R32UI: first entry << uStarTileCountBits | entry count of each cube-map tile,
+//                       the levels one after the other, 1024 wide (lib/webgl/starTiles.ts StarTileIndex)
+//   uStarTileCountBits  int     low bits of a packed tile holding its count
+//   uStarTileEntries    sampler2D RGBA float: unit vector times flux (mag-0 units), and ln(T / 1 K), of the star
+//                       of each list entry, 1024 wide
 //   uMaxTileList        int     longest tile list (loop bound)
 //   uStarTileLevels[3]  vec4    per level, narrowest margin first: (tiles per face edge, largest kernel reach
-//                       served (3 sigma, chord of unit vectors), first row in uStarTiles, 0)
+//                       served (3 sigma, chord of unit vectors), first tile in uStarTiles, 0)
 //   uDiffuse            sampler2D RGBA float mip-mapped equirect (Milky Way per sr, star flux per sr,
 //                       star flux x K per sr);  uDiffuseTexelRad float (radians)
 //   uMilkyWayGain float;  uMilkyWayLogT float (ln K)
@@ -36,6 +43,7 @@
 precision highp float;
 precision highp int;
 precision highp sampler2D;
+precision highp usampler2D;
 
 #include "sky.common.glsl"
 
@@ -79,10 +87,10 @@ uniform float uColourIndexPerLog;
 uniform float uStarGain;
 uniform float uPsfSigmaPx;
 uniform float uSourceSizeRad;
-uniform highp sampler2D uStarTiles;
+uniform highp usampler2D uStarTiles;
 uniform highp sampler2D uStarTileEntries;
-uniform highp sampler2D uStarTileEntryLogT;
 uniform int uMaxTileList;
+uniform int uStarTileCountBits;
 uniform vec4 uStarTileLevels[3];
 uniform highp sampler2D uDiffuse;
 uniform float uDiffuseTexelRad;
@@ -110,14 +118,10 @@ ivec2 arrayTexel(int i) {
   return ivec2(i & 1023, i >> 10);
 }
 
-float fetchR(sampler2D tex, int i) {
-  return texelFetch(tex, arrayTexel(i), 0).r;
-}
-
 #if STARS
 // lib/webgl/starTiles.ts starTileOf: face, column and row of the tile holding direction d, with n tiles per
-// face edge, as a texel of uStarTiles whose rows start at firstRow.
-ivec2 starTile(vec3 d, float n, int firstRow) {
+// face edge, as an element of uStarTiles whose level starts at element offset.
+int starTileIndex(vec3 d, float n, int offset) {
   // without branches (see sky.common.glsl): the face of the largest component, the other two divided by it
   vec3 a = abs(d);
   bool onX = a.x >= a.y && a.x >= a.z;
@@ -128,14 +132,14 @@ ivec2 starTile(vec3 d, float n, int firstRow) {
   int face = 2 * axis + (major >= 0.0 ? 0 : 1);
   int edge = int(n);
   ivec2 cr = clamp(ivec2(floor((uv + 1.0) * 0.5 * n)), ivec2(0), ivec2(edge - 1));
-  return ivec2(face * edge + cr.x, firstRow + cr.y);
+  return offset + (face * edge + cr.y) * edge + cr.x;
 }
 
 // Star light by Gaussian kernels on the sky (lib/render/shade.ts, the star loop): every star closer than
 // reach = 3 sigma adds its kernel. The one tile list read holds every star within its margin of the tile: that
 // of the first level whose margin covers the reach (the last level's margin is the widest reach summed).
-vec3 starLight(vec3 d, float sigma, float weight, float logShift) {
-  vec3 sum = vec3(0.0);
+vec2 starLight(vec3 d, float sigma, float weight) {
+  vec2 sum = vec2(0.0);
   float reach = 3.0 * sigma;
   float reach2 = reach * reach;
   float inv2s2 = 1.0 / (2.0 * sigma * sigma);
@@ -143,20 +147,21 @@ vec3 starLight(vec3 d, float sigma, float weight, float logShift) {
   vec4 level = uStarTileLevels[2];
   if (reach <= uStarTileLevels[1].y) level = uStarTileLevels[1];
   if (reach <= uStarTileLevels[0].y) level = uStarTileLevels[0];
-  ivec2 tile = starTile(d, level.x, int(level.z));
-  vec2 list = texelFetch(uStarTiles, tile, 0).rg;
-  int first = int(list.x + 0.5);
-  int end = first + min(int(list.y + 0.5), uMaxTileList);
+  uint list = texelFetch(uStarTiles, arrayTexel(starTileIndex(d, level.x, int(level.z + 0.5))), 0).r;
+  uint bits = uint(uStarTileCountBits);
+  int first = int(list >> bits);
+  int end = first + min(int(list & ((1u << bits) - 1u)), uMaxTileList);
   for (int s = first; s < end; s++) {
+    // one texel per star: its direction times its flux, and ln T
     vec4 star = texelFetch(uStarTileEntries, arrayTexel(s), 0);
-    vec3 e = star.xyz - d;
+    float flux2 = dot(star.xyz, star.xyz);
+    float invFlux = inversesqrt(flux2);
+    vec3 e = star.xyz * invFlux - d;
     float dist2 = dot(e, e);
-    if (dist2 < reach2) {
-      float w = norm * star.w * exp(-dist2 * inv2s2);
-      sum += w * blackbodyLog(fetchR(uStarTileEntryLogT, s) + logShift);
-    }
+    float w = dist2 < reach2 ? flux2 * invFlux * exp(-dist2 * inv2s2) : 0.0;
+    sum += w * vec2(1.0, star.w);
   }
-  return sum;
+  return norm * sum;
 }
 #endif
 
@@ -170,13 +175,14 @@ void shadeSample(vec2 p, float samples, out vec3 radiance, out vec4 overlay, out
   // colours shift by g: ln(g) moves a blackbody's ln T (physics.md section 6)
   float logShift = uColourShift ? log(tr.g) : 0.0;
   float mapWeight = 0.0;
-  vec3 light = vec3(0.0);
+  // (luminance, luminance x ln T) of all sources
+  vec2 light = vec2(0.0);
 #if STARS
   // the star loop first: the fewer values live across a loop, the fewer SwiftShader saves and reloads
   float starSigma = max(uPsfSigmaPx * tr.footRad, uSourceSizeRad);
   float sigmaMax = STAR_CELL_SIZE / 3.0;
   mapWeight = smoothstep(0.5 * sigmaMax, sigmaMax, starSigma);
-  if (sky && mapWeight < 1.0) light = starLight(tr.dir, starSigma, 1.0 - mapWeight, logShift);
+  if (sky && mapWeight < 1.0) light = starLight(tr.dir, starSigma, 1.0 - mapWeight);
 #endif
   vec2 ll = latLon(tr.dir);
 #if HORIZON_GRID || FAR_SIDE_GRID || CELESTIAL_GRID
@@ -209,27 +215,33 @@ void shadeSample(vec2 p, float samples, out vec3 radiance, out vec4 overlay, out
   float lod = ratio > 1.0 ? log2(ratio) : 0.0;
   vec4 m = textureLod(uDiffuse, vec2(u, v), lod);
 #if MILKY_WAY
-  light += m.r * uMilkyWayGain * blackbodyLog(uMilkyWayLogT + logShift);
+  light += m.r * uMilkyWayGain * vec2(1.0, uMilkyWayLogT);
 #endif
 #if STARS
-  if (mapWeight > 0.0 && m.g > 0.0) light += m.g * uStarGain * mapWeight * blackbodyLog(log(m.b / m.g) + logShift);
+  if (mapWeight > 0.0 && m.g > 0.0) light += m.g * uStarGain * mapWeight * vec2(1.0, log(m.b / m.g));
 #endif
 #endif
 #if UNIFORM_SKY
-  light += uUniformBrightness * blackbodyLog(log(uUniformTemperatureK) + logShift);
+  light += uUniformBrightness * vec2(1.0, log(uUniformTemperatureK));
 #endif
   // Liouville: bolometric surface brightness scales as g^4 (physics.md section 6)
   float g2 = tr.g * tr.g;
-  if (sky) radiance = light * (uBeaming ? g2 * g2 : 1.0);
+  vec3 colour = light.x > 0.0 ? light.x * blackbodyLog(light.y / light.x + logShift) : vec3(0.0);
+  if (sky) radiance = colour * (uBeaming ? g2 * g2 : 1.0);
 }
 
-// sRGB encoding (IEC 61966-2-1) of display-linear values, clamped to 0..1. Written for three channels at once
-// and without branches: software WebGL pays for every branch of a quad, so one vector pow beats three
-// scalar early returns (measured about 5% of a 1280x720 frame in SwiftShader).
+// sRGB encoding (IEC 61966-2-1) of display-linear values, clamped to 0..1: the linear toe exactly, the power
+// curve by a fit in sqrt(c), c^(1/4) and c^(1/8) (common practice in real-time graphics; coefficients from
+// memory) that stays within 1/255 of 1.055 c^(1/2.4) - 0.055 after rounding (tests/unit/webgl/srgbFit.test.ts).
+// Written for three channels at once and without branches: software WebGL pays for every branch of a quad, and
+// three square roots cost it less than one vector pow (about 4% of a 1280x720 frame in SwiftShader).
 vec3 srgbEncode(vec3 c) {
   c = clamp(c, 0.0, 1.0);
-  // the select form of mix, and pow kept off 0, so the unused side can never turn the result into NaN
-  return mix(12.92 * c, 1.055 * pow(max(c, 0.0031308), vec3(1.0 / 2.4)) - 0.055, greaterThan(c, vec3(0.0031308)));
+  // the select form of mix: the toe below 0.0031308, the fit above
+  vec3 s1 = sqrt(c);
+  vec3 s2 = sqrt(s1);
+  vec3 s3 = sqrt(s2);
+  return mix(12.92 * c, 0.585122381 * s1 + 0.783140355 * s2 - 0.368262736 * s3, greaterThan(c, vec3(0.0031308)));
 }
 
 void main() {

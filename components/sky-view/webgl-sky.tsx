@@ -1,7 +1,7 @@
 'use client';
 /**
  * The WebGL path: a @react-three/fiber canvas of exactly the request's size whose
- * one render pass (GpuSkyRenderer) draws shaders/sky.lensed.frag. Frames are
+ * render pass (GpuSkyRenderer) draws shaders/sky.lensed.frag. Frames are
  * drawn on demand, when the request, mode or sky data change.
  */
 import { useEffect, useMemo, useState } from 'react';

@@ -1,7 +1,8 @@
 /**
  * The engine's per-frame ray table (lib/relativity RayTable) packed for the
  * GPU: the segment layout as two vec4 uniform arrays and the node values
- * (phi, dphi/dt) as a two-channel float texture. The fragment shader
+ * as a float texture whose texel i holds node i and node i + 1 (phi, dphi/dt
+ * each), so the shader's cubic step reads one texel instead of two. The fragment shader
  * (shaders/sky.common.glsl, lookupRayTable) repeats RayTable.lookup on these
  * arrays, so the GPU and the CPU read the same table.
  *
@@ -46,7 +47,7 @@ export interface PackedRayTable {
   segmentA: Float32Array;
   /** per segment (t0, dt, node offset, node count), MAX_RAY_TABLE_SEGMENTS * 4 floats */
   segmentB: Float32Array;
-  /** node texture, 4 floats per texel (phi rad, dphi/dt, 0, 0), RAY_TABLE_TEXTURE_WIDTH wide */
+  /** node texture, 4 floats per texel (phi rad, dphi/dt of node i, then of node i + 1), RAY_TABLE_TEXTURE_WIDTH wide */
   nodes: Float32Array;
   textureWidth: number;
   textureHeight: number;
@@ -103,8 +104,11 @@ export function packRayTable(arrays: RayTableArrays, reuse?: PackedRayTable): Pa
   }
   const nodes = out.nodes;
   for (let i = 0; i < total; i++) {
+    const next = Math.min(i + 1, total - 1);
     nodes[4 * i] = arrays.phi[i];
     nodes[4 * i + 1] = arrays.slope[i];
+    nodes[4 * i + 2] = arrays.phi[next];
+    nodes[4 * i + 3] = arrays.slope[next];
   }
   return out;
 }
@@ -165,9 +169,9 @@ export function lookupPackedRayTable(table: PackedRayTable, psi: number, out: Pa
     const s = x - i;
     const k = 4 * (offset + i);
     const p0 = nodes[k];
-    const p1 = nodes[k + 4];
+    const p1 = nodes[k + 2];
     const m0 = nodes[k + 1] * dt;
-    const m1 = nodes[k + 5] * dt;
+    const m1 = nodes[k + 3] * dt;
     const s2 = s * s;
     const s3 = s2 * s;
     phi = (2 * s3 - 3 * s2 + 1) * p0 + (s3 - 2 * s2 + s) * m0 + (-2 * s3 + 3 * s2) * p1 + (s3 - s2) * m1;

@@ -10,6 +10,7 @@
  */
 import type { GpuFrame } from './gpuFrame';
 import { FATE_FAR_SIDE, FATE_HORIZON } from '../relativity';
+import { PROJECTION_CODES } from './projectionConstants';
 
 /** #define name -> integer value. */
 export type ShaderDefines = Record<string, number>;
@@ -79,6 +80,28 @@ export function lensedShaderDefines(frame: GpuFrame, inputs: LensedVariantInputs
     DIFFUSE: inputs.diffuse ? 1 : 0,
     MILKY_WAY: inputs.diffuse && inputs.milkyWay ? 1 : 0,
     UNIFORM_SKY: inputs.uniformBrightness > 0 ? 1 : 0,
+  };
+}
+
+/**
+ * Whether drawing the frame by fate tiles (lib/webgl/fateTiles.ts) saves work: some of its rays end on r = 2M,
+ * or it is a dome master, whose corners lie outside the image circle.
+ * @param frame per-frame GPU inputs (lensing on, with its ray table)
+ */
+export function fateTilesPay(frame: GpuFrame): boolean {
+  if (!frame.lensing || !frame.table) return false;
+  return fateOccurs(frame, FATE_HORIZON) || fateOccurs(frame, FATE_FAR_SIDE) || frame.projection.kind === PROJECTION_CODES.dome;
+}
+
+/**
+ * Switches of the lensed program for tiles whose rays all reach the sky (no horizon or far-side grid code) and
+ * for tiles whose rays all end on r = 2M (no sky sources, no celestial grid); the full set serves mixed tiles.
+ * @param full lensedShaderDefines of the frame
+ */
+export function tileShaderDefines(full: ShaderDefines): { sky: ShaderDefines; surface: ShaderDefines } {
+  return {
+    sky: { ...full, HORIZON_GRID: 0, FAR_SIDE_GRID: 0, DASHED_GRIDS: 0 },
+    surface: { ...full, STARS: 0, DIFFUSE: 0, MILKY_WAY: 0, UNIFORM_SKY: 0, CELESTIAL_GRID: 0 },
   };
 }
 

@@ -11,7 +11,12 @@
  * in one list, with one loop, instead of walking up to eight cells of
  * lib/render's 3-D grid (lib/render/starField.ts), three nested loops that
  * software WebGL runs slowly. Built once per catalogue and magnitude limit.
- * The GPU twin of starTileOf is starTile in shaders/sky.lensed.frag.
+ * The GPU twin of starTileOf is starTileIndex in shaders/sky.lensed.frag.
+ *
+ * Software WebGL runs a loop for the longest list among neighbouring pixels,
+ * and one texture fetch per star costs about as much as the rest of the
+ * iteration, so the lists are short (fine tiles where kernels are narrow)
+ * and each star is one RGBA texel.
  */
 import type { StarField } from '../render/starField';
 import { forEachStarNear, STAR_CELL_SIZE } from '../render/starField';
@@ -28,38 +33,86 @@ export interface StarTileLevel {
 /**
  * The levels, narrowest margin first. Reaches are about 2.4 pixel footprints (sigma 0.8 px): 0.0026 at
  * 1280 x 720 and 0.0053 at 640 x 360 for a 70-degree flat frame, more where lensing magnifies. The last
- * margin is STAR_CELL_SIZE, the widest reach summed star by star.
+ * margin is STAR_CELL_SIZE, the widest reach summed star by star. With the 8.5 mag catalogue (41,411 stars)
+ * the lists hold on average 0.28, 1.58 and 8.5 stars (longest 8, 19 and 38); the first level's finer tiles
+ * cut the HD frame's star loop by more than half against 256 per edge (0.72 stars per list).
  */
 export const STAR_TILE_LEVELS: readonly StarTileLevel[] = [
-  { tilesPerEdge: 256, marginChord: 0.004 },
+  { tilesPerEdge: 512, marginChord: 0.003 },
   { tilesPerEdge: 256, marginChord: 0.008 },
   { tilesPerEdge: 128, marginChord: STAR_CELL_SIZE },
 ];
+
 /**
  * Extra margin added when the lists are built, chord: covers float32 rounding of the GPU's tile choice
  * (~1e-7) many times over.
  */
 const SAFETY_CHORD = 1e-5;
-/** Width of the entry textures, texels. */
-const ENTRY_TEXTURE_WIDTH = 1024;
+/** Width of the tile and entry textures, texels (1-D arrays laid out in rows, as the shader's arrayTexel). */
+const ARRAY_TEXTURE_WIDTH = 1024;
+
+/** A 1-D array of unsigned integers laid out in rows of a texture (one channel). */
+export interface UintImage {
+  width: number;
+  height: number;
+  data: Uint32Array;
+}
 
 /** The tile index in GPU form. */
 export interface StarTileIndex {
   /**
-   * RG per tile: (first entry, entry count), 6 x (largest tilesPerEdge) wide; the levels' tiles one level below
-   * the other: texel x = face * tilesPerEdge + column, y = firstRow[level] + row
+   * One unsigned integer per tile: first entry << countBits | entry count. Tile t of a level is element
+   * levelOffset[level] + (face * tilesPerEdge + row) * tilesPerEdge + column, ARRAY_TEXTURE_WIDTH per row.
    */
-  tiles: FloatImage;
-  /** first texel row of each level in `tiles` */
-  firstRow: number[];
-  /** RGBA per entry: hole-frame unit vector and flux (mag-0 units) of the star, ENTRY_TEXTURE_WIDTH wide */
+  tiles: UintImage;
+  /** low bits of a packed tile holding its list length: the fewest that hold the longest list */
+  countBits: number;
+  /** first element of each level in `tiles` */
+  levelOffset: number[];
+  /**
+   * RGBA per entry: the star's hole-frame unit vector times its flux (mag-0 units; its length is the flux),
+   * and ln(T / 1 K); ARRAY_TEXTURE_WIDTH wide. decodeStarEntry reads one back.
+   */
   entries: FloatImage;
-  /** R per entry: ln(T / 1 K) of the star */
-  entryLogT: FloatImage;
   /** number of entries (a star appears in every tile it is near) */
   entryCount: number;
   /** longest list (bounds the shader's loop) */
   maxListLength: number;
+}
+
+/** Smallest flux stored, so a zero-flux star keeps a direction (its light stays negligible). */
+const MIN_ENTRY_FLUX = 1e-12;
+
+/** One decoded entry. */
+export interface StarEntry {
+  x: number;
+  y: number;
+  z: number;
+  flux: number;
+  logTemperature: number;
+}
+
+/**
+ * Read entry e back as the shader does (direction = vector / length, flux = length).
+ * @param index the tile index
+ * @param e entry number, 0..entryCount-1
+ * @param out record written
+ * @returns out
+ */
+export function decodeStarEntry(index: StarTileIndex, e: number, out: StarEntry): StarEntry {
+  const d = index.entries.data;
+  const flux = Math.hypot(d[4 * e], d[4 * e + 1], d[4 * e + 2]);
+  out.x = d[4 * e] / flux;
+  out.y = d[4 * e + 1] / flux;
+  out.z = d[4 * e + 2] / flux;
+  out.flux = flux;
+  out.logTemperature = d[4 * e + 3];
+  return out;
+}
+
+/** (first entry, count) of a packed tile whose count takes the low countBits bits. */
+export function unpackTile(packed: number, countBits: number): { first: number; count: number } {
+  return { first: Math.floor(packed / 2 ** countBits), count: packed % 2 ** countBits };
 }
 
 /** Tile of a unit vector: face 0..5 (+x, -x, +y, -y, +z, -z) and column/row on that face. */
@@ -125,7 +178,7 @@ interface StarList {
 }
 
 /** Append the lists of one level's tiles to `list`; tile t's (first, count) go to first[t], count[t]. */
-function addLevel(field: StarField, n: number, margin: number, list: StarList, first: Float32Array, count: Float32Array): void {
+function addLevel(field: StarField, n: number, margin: number, list: StarList, first: Uint32Array, count: Uint32Array): void {
   const centre = new Float64Array(3);
   const corner = new Float64Array(3);
   const step = 2 / n;
@@ -179,43 +232,35 @@ function addLevel(field: StarField, n: number, margin: number, list: StarList, f
  */
 export function buildStarTileIndex(field: StarField): StarTileIndex {
   const list: StarList = { items: new Int32Array(1 << 16), used: 0 };
-  const width = 6 * Math.max(...STAR_TILE_LEVELS.map((l) => l.tilesPerEdge));
-  const firstRow: number[] = [];
-  let rows = 0;
+  const levelOffset: number[] = [];
+  let tileCount = 0;
   for (const level of STAR_TILE_LEVELS) {
-    firstRow.push(rows);
-    rows += level.tilesPerEdge;
+    levelOffset.push(tileCount);
+    tileCount += 6 * level.tilesPerEdge * level.tilesPerEdge;
   }
-  const tiles: FloatImage = { width, height: rows, channels: 2, data: new Float32Array(width * rows * 2) };
-  let maxListLength = 0;
+  const first = new Uint32Array(tileCount);
+  const count = new Uint32Array(tileCount);
   STAR_TILE_LEVELS.forEach((level, k) => {
     const n = level.tilesPerEdge;
-    const first = new Float32Array(6 * n * n);
-    const count = new Float32Array(6 * n * n);
-    addLevel(field, n, level.marginChord, list, first, count);
-    for (let face = 0; face < 6; face++) {
-      for (let row = 0; row < n; row++) {
-        for (let column = 0; column < n; column++) {
-          const t = face * n * n + row * n + column;
-          const texel = (firstRow[k] + row) * width + face * n + column;
-          tiles.data[2 * texel] = first[t];
-          tiles.data[2 * texel + 1] = count[t];
-          if (count[t] > maxListLength) maxListLength = count[t];
-        }
-      }
-    }
+    addLevel(field, level.tilesPerEdge, level.marginChord, list, first.subarray(levelOffset[k], levelOffset[k] + 6 * n * n), count.subarray(levelOffset[k], levelOffset[k] + 6 * n * n));
   });
   const used = list.used;
-  const entryRows = Math.max(1, Math.ceil(used / ENTRY_TEXTURE_WIDTH));
-  const entries: FloatImage = { width: ENTRY_TEXTURE_WIDTH, height: entryRows, channels: 4, data: new Float32Array(ENTRY_TEXTURE_WIDTH * entryRows * 4) };
-  const entryLogT: FloatImage = { width: ENTRY_TEXTURE_WIDTH, height: entryRows, channels: 1, data: new Float32Array(ENTRY_TEXTURE_WIDTH * entryRows) };
+  let maxListLength = 0;
+  for (let t = 0; t < tileCount; t++) maxListLength = Math.max(maxListLength, count[t]);
+  const countBits = Math.max(1, Math.ceil(Math.log2(maxListLength + 1)));
+  if (used * 2 ** countBits > 2 ** 32) throw new RangeError(`${used} star tile entries with lists of up to ${maxListLength} do not fit 32-bit packed tiles`);
+  const tiles: UintImage = { width: ARRAY_TEXTURE_WIDTH, height: Math.ceil(tileCount / ARRAY_TEXTURE_WIDTH), data: new Uint32Array(0) };
+  tiles.data = new Uint32Array(tiles.width * tiles.height);
+  for (let t = 0; t < tileCount; t++) tiles.data[t] = first[t] * 2 ** countBits + count[t];
+  const entryRows = Math.max(1, Math.ceil(used / ARRAY_TEXTURE_WIDTH));
+  const entries: FloatImage = { width: ARRAY_TEXTURE_WIDTH, height: entryRows, channels: 4, data: new Float32Array(ARRAY_TEXTURE_WIDTH * entryRows * 4) };
   for (let k = 0; k < used; k++) {
     const s = list.items[k];
-    entries.data[4 * k] = field.x[s];
-    entries.data[4 * k + 1] = field.y[s];
-    entries.data[4 * k + 2] = field.z[s];
-    entries.data[4 * k + 3] = field.flux[s];
-    entryLogT.data[k] = field.logTemperature[s];
+    const flux = Math.max(field.flux[s], MIN_ENTRY_FLUX);
+    entries.data[4 * k] = field.x[s] * flux;
+    entries.data[4 * k + 1] = field.y[s] * flux;
+    entries.data[4 * k + 2] = field.z[s] * flux;
+    entries.data[4 * k + 3] = field.logTemperature[s];
   }
-  return { tiles, firstRow, entries, entryLogT, entryCount: used, maxListLength };
+  return { tiles, countBits, levelOffset, entries, entryCount: used, maxListLength };
 }

@@ -217,7 +217,7 @@ async function main(): Promise<void> {
     console.log(`agreement 640x360 vs lib/render: mean |diff| ${stats.mean.toFixed(3)}/255 (target < 2), 99th percentile ${stats.p99}/255 (target < 10)`);
     const skyBuildMs = await page.evaluate(() => (window as unknown as { bench: { skyBuildMs(): number } }).bench.skyBuildMs());
     console.log(`diagnostics: GPU-process CPU time per WebGL frame (incl. warm-up) ${gpuCpuMs.join(', ')}; sky data (star tile lists) built once in ${skyBuildMs.toFixed(0)} ms`);
-    console.log(`design: per-pixel work is constant-time (fixed ray-table lookup, one star tile list bounded by the longest list, one mip sample, one program per setting); bench took ${((performance.now() - started) / 1000).toFixed(0)} s`);
+    console.log(`design: per-pixel work is constant-time (fixed ray-table lookup, one star tile list bounded by the longest list, one mip sample, one program per setting and per class of screen tile); bench took ${((performance.now() - started) / 1000).toFixed(0)} s`);
   } finally {
     await browser.close();
     server.close();

@@ -1,10 +1,13 @@
 /**
- * The WebGL twin of lib/render: one full-frame quad drawn with
- * shaders/sky.lensed.frag (the picture) or shaders/sky.directions.frag (the
- * "where the light comes from" debug target, float RGBA). Per frame the CPU
- * side (lib/webgl prepareGpuFrame) builds the ray table and constants; this
- * class only moves them into uniforms and textures and draws. No React here,
- * so the benchmark page uses it too.
+ * The WebGL twin of lib/render: the frame drawn with shaders/sky.lensed.frag
+ * (the picture) or shaders/sky.directions.frag (the "where the light comes
+ * from" debug target, float RGBA). Per frame the CPU side (lib/webgl
+ * prepareGpuFrame) builds the ray table and constants; this class moves them
+ * into uniforms and textures and draws. Where part of the frame's rays end on
+ * r = 2M (or outside a dome master's circle), the picture is drawn as screen
+ * tiles sorted by lib/webgl/fateTiles.ts, each class with a program that
+ * leaves out the work its pixels cannot need. No React here, so the benchmark
+ * page uses it too.
  */
 import * as THREE from 'three';
 import type { FrameRequest } from '@/lib/render/schema';
@@ -13,10 +16,12 @@ import { MAX_RAY_TABLE_SEGMENTS } from '@/lib/webgl/rayTableTexture';
 import { CELESTIAL_GRID } from '@/lib/webgl/sourceDirections';
 import { STAR_TILE_LEVELS } from '@/lib/webgl/starTiles';
 import { SKY_DIRECTIONS_FRAG, SKY_FULLSCREEN_VERT, SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
-import { directionsShaderDefines, lensedShaderDefines, shaderVariantKey, type ShaderDefines } from '@/lib/webgl/shaderVariant';
+import { directionsShaderDefines, fateTilesPay, lensedShaderDefines, shaderVariantKey, tileShaderDefines, type ShaderDefines } from '@/lib/webgl/shaderVariant';
+import { classifyFateTiles, tileTriangles, TILE_MIXED, TILE_SKY, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { createProjector } from '@/lib/render/projections';
 import { MILKY_WAY_TEMPERATURE_K } from '@/lib/render/milkyWay';
 import { hexToLinear } from '@/lib/render/shade';
-import { colourTexture, dataTexture, diffuseTexture, RayTableTexture, starTextures, type StarGpuTextures } from './sky-textures';
+import { colourTexture, dataTexture, diffuseTexture, RayTableTexture, starTextures, uintTexture, type StarGpuTextures } from './sky-textures';
 import type { GpuSkyData } from './sky-data';
 
 /** Display mode: the picture, or the picture with the celestial grid drawn through the lensing. */
@@ -36,6 +41,43 @@ function colourVec(c: ArrayLike<number>): THREE.Vector3 {
   return new THREE.Vector3(c[0], c[1], c[2]);
 }
 
+/** A mesh of screen tiles of one class (clip-space triangles), refilled per frame. */
+class TileMesh {
+  readonly mesh: THREE.Mesh;
+  private positions = new Float32Array(0);
+  private vertices = 0;
+  private readonly geometry = new THREE.BufferGeometry();
+
+  constructor(material: THREE.Material) {
+    this.mesh = new THREE.Mesh(this.geometry, material);
+    this.mesh.frustumCulled = false;
+    this.mesh.visible = false;
+  }
+
+  /** Refill with the tiles of one class; floats: the capacity needed (18 per tile of the frame). */
+  fill(write: (out: Float32Array) => number, floats: number): void {
+    if (this.positions.length < floats) {
+      this.positions = new Float32Array(floats);
+      this.geometry.setAttribute('position', new THREE.BufferAttribute(this.positions, 3).setUsage(THREE.DynamicDrawUsage));
+    }
+    this.vertices = write(this.positions);
+    const attribute = this.geometry.getAttribute('position') as THREE.BufferAttribute;
+    attribute.clearUpdateRanges();
+    attribute.addUpdateRange(0, 3 * this.vertices);
+    attribute.needsUpdate = true;
+    this.geometry.setDrawRange(0, this.vertices);
+  }
+
+  /** Draw with the next render (when it has tiles) or not. */
+  setShown(shown: boolean): void {
+    this.mesh.visible = shown && this.vertices > 0;
+  }
+
+  dispose(): void {
+    this.geometry.dispose();
+  }
+}
+
 /** Draws frames of a request on a three.js renderer. */
 export class GpuSkyRenderer {
   private readonly scene = new THREE.Scene();
@@ -46,9 +88,14 @@ export class GpuSkyRenderer {
   /** the programs of the last prepared frame */
   private lensed: THREE.RawShaderMaterial;
   private directions: THREE.RawShaderMaterial;
+  /** the frame's tiles by class (sky, surface, mixed), or null to draw one full-frame quad */
+  private readonly tiles: Record<'sky' | 'surface' | 'mixed', TileMesh>;
+  private tiled = false;
   private readonly uniforms: Record<string, THREE.IUniform>;
   private readonly rayTable = new RayTableTexture();
   private readonly placeholder = dataTexture({ width: 1, height: 1, channels: 4, data: new Float32Array(4) });
+  /** stands in for the integer tile texture (an integer sampler must not see a float texture) */
+  private readonly uintPlaceholder = uintTexture({ width: 1, height: 1, data: new Uint32Array(1) });
   private sky: { data: GpuSkyData; stars: StarGpuTextures | null; diffuse: THREE.DataTexture | null; colour: THREE.DataTexture } | null = null;
   private last: GpuFrame | undefined;
   private lastKey = '';
@@ -81,10 +128,10 @@ export class GpuSkyRenderer {
       uStarGain: { value: 1 },
       uPsfSigmaPx: { value: 0.8 },
       uSourceSizeRad: { value: 5 * ARCSEC_RAD },
-      uStarTiles: { value: this.placeholder },
+      uStarTiles: { value: this.uintPlaceholder },
       uStarTileEntries: { value: this.placeholder },
-      uStarTileEntryLogT: { value: this.placeholder },
       uMaxTileList: { value: 0 },
+      uStarTileCountBits: { value: 1 },
       uStarTileLevels: { value: new Float32Array(4 * STAR_TILE_LEVELS.length) },
       uDiffuse: { value: this.placeholder },
       uDiffuseTexelRad: { value: Math.PI / 512 },
@@ -105,6 +152,8 @@ export class GpuSkyRenderer {
     this.mesh = new THREE.Mesh(new THREE.PlaneGeometry(2, 2), this.lensed);
     this.mesh.frustumCulled = false;
     this.scene.add(this.mesh);
+    this.tiles = { sky: new TileMesh(this.lensed), surface: new TileMesh(this.lensed), mixed: new TileMesh(this.lensed) };
+    for (const tile of Object.values(this.tiles)) this.scene.add(tile.mesh);
   }
 
   /** The compiled program of a fragment shader with a set of switches (cached; three.js compiles on first use). */
@@ -141,12 +190,12 @@ export class GpuSkyRenderer {
     u.uColourLogMinK.value = data.colour.logMinK;
     u.uColourEntries.value = data.colour.image.width;
     u.uColourIndexPerLog.value = (data.colour.image.width - 1) / data.colour.logSpan;
-    u.uStarTiles.value = this.sky.stars?.tiles ?? this.placeholder;
+    u.uStarTiles.value = this.sky.stars?.tiles ?? this.uintPlaceholder;
     u.uStarTileEntries.value = this.sky.stars?.tileEntries ?? this.placeholder;
-    u.uStarTileEntryLogT.value = this.sky.stars?.tileEntryLogT ?? this.placeholder;
     u.uMaxTileList.value = this.sky.stars?.maxTileList ?? 0;
+    u.uStarTileCountBits.value = data.stars?.tiles.countBits ?? 1;
     const levels = u.uStarTileLevels.value as Float32Array;
-    STAR_TILE_LEVELS.forEach((level, k) => levels.set([level.tilesPerEdge, level.marginChord, data.stars?.tiles.firstRow[k] ?? 0, 0], 4 * k));
+    STAR_TILE_LEVELS.forEach((level, k) => levels.set([level.tilesPerEdge, level.marginChord, data.stars?.tiles.levelOffset[k] ?? 0, 0], 4 * k));
     u.uDiffuse.value = this.sky.diffuse ?? this.placeholder;
     u.uDiffuseTexelRad.value = data.diffuse?.texelRad ?? Math.PI / 512;
     this.lastKey = '';
@@ -211,22 +260,40 @@ export class GpuSkyRenderer {
     u.uHorizonColour.value = colourVec(frame.horizonGrid.colour);
     u.uFarSideColour.value = colourVec(frame.farSideGrid.colour);
     u.uCelestialGrid.value = new THREE.Vector4(mode === 'sources' ? 1 : 0, (CELESTIAL_GRID.spacingDeg * Math.PI) / 180, CELESTIAL_GRID.lineWidthPx, 0);
-    this.lensed = this.program(
-      SKY_LENSED_FRAG,
-      lensedShaderDefines(frame, {
-        sourcesMode: mode === 'sources',
-        stars: stars.enabled && !!this.sky?.stars,
-        diffuse: !!this.sky?.diffuse,
-        milkyWay: req.sky.milkyWay.enabled && !!this.sky?.data.hasMilkyWay,
-        uniformBrightness: req.sky.uniform?.brightness ?? 0,
-      }),
-    );
+    const defines = lensedShaderDefines(frame, {
+      sourcesMode: mode === 'sources',
+      stars: stars.enabled && !!this.sky?.stars,
+      diffuse: !!this.sky?.diffuse,
+      milkyWay: req.sky.milkyWay.enabled && !!this.sky?.data.hasMilkyWay,
+      uniformBrightness: req.sky.uniform?.brightness ?? 0,
+    });
+    this.lensed = this.program(SKY_LENSED_FRAG, defines);
     this.directions = this.program(SKY_DIRECTIONS_FRAG, directionsShaderDefines(frame));
+    this.tiled = fateTilesPay(frame) && frame.table !== null;
+    if (this.tiled && frame.table) {
+      const tiles = classifyFateTiles({ ...frame, table: frame.table }, createProjector(req.projection, frame.width, frame.height));
+      const floats = 18 * tiles.classes.length;
+      const programs = tileShaderDefines(defines);
+      this.tiles.sky.mesh.material = this.program(SKY_LENSED_FRAG, programs.sky);
+      this.tiles.surface.mesh.material = this.program(SKY_LENSED_FRAG, programs.surface);
+      this.tiles.mixed.mesh.material = this.lensed;
+      this.tiles.sky.fill((out) => tileTriangles(tiles, TILE_SKY, frame.width, frame.height, out), floats);
+      this.tiles.surface.fill((out) => tileTriangles(tiles, TILE_SURFACE, frame.width, frame.height, out), floats);
+      this.tiles.mixed.fill((out) => tileTriangles(tiles, TILE_MIXED, frame.width, frame.height, out), floats);
+    }
+  }
+
+  /** Draw the full-frame quad with a material, or (null) the frame's tiles. */
+  private show(material: THREE.RawShaderMaterial | null): void {
+    this.mesh.visible = material !== null;
+    if (material) this.mesh.material = material;
+    for (const tile of Object.values(this.tiles)) tile.setShown(material === null);
   }
 
   /** Draw the picture to the canvas (or a render target). */
   draw(target: THREE.WebGLRenderTarget | null = null): void {
-    this.mesh.material = this.lensed;
+    // tiles not drawn (outside a dome master's circle) keep the clear colour: black, as the full program draws them
+    this.show(this.tiled ? null : this.lensed);
     this.gl.setRenderTarget(target);
     this.gl.render(this.scene, this.camera);
     this.gl.setRenderTarget(null);
@@ -257,11 +324,10 @@ export class GpuSkyRenderer {
     this.prepare(req, 'sources');
     const target = new THREE.WebGLRenderTarget(req.width, req.height, { type: THREE.FloatType, format: THREE.RGBAFormat, depthBuffer: false });
     try {
-      this.mesh.material = this.directions;
+      this.show(this.directions);
       this.gl.setRenderTarget(target);
       this.gl.render(this.scene, this.camera);
       this.gl.setRenderTarget(null);
-      this.mesh.material = this.lensed;
       const out = new Float32Array(req.width * req.height * 4);
       this.gl.readRenderTargetPixels(target, 0, 0, req.width, req.height, out);
       return flipRows(out, req.width, req.height, 4);
@@ -277,7 +343,6 @@ export class GpuSkyRenderer {
     if (this.sky.stars) {
       this.sky.stars.tiles.dispose();
       this.sky.stars.tileEntries.dispose();
-      this.sky.stars.tileEntryLogT.dispose();
     }
     this.sky = null;
   }
@@ -287,9 +352,11 @@ export class GpuSkyRenderer {
     this.disposeSky();
     this.rayTable.dispose();
     this.placeholder.dispose();
+    this.uintPlaceholder.dispose();
     for (const material of this.programs.values()) material.dispose();
     this.programs.clear();
     this.mesh.geometry.dispose();
+    for (const tile of Object.values(this.tiles)) tile.dispose();
   }
 }
 

@@ -5,11 +5,23 @@
 import * as THREE from 'three';
 import type { FloatImage, DiffuseTextures, ColourTexture, StarTextures } from '@/lib/webgl/skyTextures';
 import { RAY_TABLE_TEXTURE_WIDTH, type PackedRayTable } from '@/lib/webgl/rayTableTexture';
+import type { UintImage } from '@/lib/webgl/starTiles';
 
 /** A nearest-filtered float texture holding a 1-D array laid out in rows. */
 export function dataTexture(image: FloatImage): THREE.DataTexture {
   const format = image.channels === 1 ? THREE.RedFormat : image.channels === 2 ? THREE.RGFormat : THREE.RGBAFormat;
   const tex = new THREE.DataTexture(image.data, image.width, image.height, format, THREE.FloatType);
+  tex.minFilter = THREE.NearestFilter;
+  tex.magFilter = THREE.NearestFilter;
+  tex.generateMipmaps = false;
+  tex.needsUpdate = true;
+  return tex;
+}
+
+/** A nearest-filtered unsigned-integer texture (R32UI) holding a 1-D array laid out in rows. */
+export function uintTexture(image: UintImage): THREE.DataTexture {
+  const tex = new THREE.DataTexture(image.data, image.width, image.height, THREE.RedIntegerFormat, THREE.UnsignedIntType);
+  tex.internalFormat = 'R32UI';
   tex.minFilter = THREE.NearestFilter;
   tex.magFilter = THREE.NearestFilter;
   tex.generateMipmaps = false;
@@ -77,12 +89,10 @@ export class RayTableTexture {
 
 /** GPU copies of the star data: the tile lists of lib/webgl/starTiles.ts. */
 export interface StarGpuTextures {
-  /** per-tile (first entry, count) */
+  /** per tile: first entry and count, packed */
   tiles: THREE.DataTexture;
-  /** per entry: unit vector and flux */
+  /** per entry: unit vector times flux, ln T */
   tileEntries: THREE.DataTexture;
-  /** per entry: ln T */
-  tileEntryLogT: THREE.DataTexture;
   /** longest list */
   maxTileList: number;
 }
@@ -90,9 +100,8 @@ export interface StarGpuTextures {
 /** Upload star textures. */
 export function starTextures(stars: StarTextures): StarGpuTextures {
   return {
-    tiles: dataTexture(stars.tiles.tiles),
+    tiles: uintTexture(stars.tiles.tiles),
     tileEntries: dataTexture(stars.tiles.entries),
-    tileEntryLogT: dataTexture(stars.tiles.entryLogT),
     maxTileList: stars.tiles.maxListLength,
   };
 }

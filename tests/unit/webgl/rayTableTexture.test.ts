@@ -90,6 +90,19 @@ describe('lookupPackedRayTable', () => {
 });
 
 describe('packRayTable', () => {
+  it('should carry node i and node i + 1 in texel i, so one fetch serves a cubic step', () => {
+    const arrays = buildRayTableForRadialObserver(5, null).toArrays();
+    const table = packRayTable(arrays);
+    const total = arrays.phi.length;
+    for (let i = 0; i < total; i++) {
+      const next = Math.min(i + 1, total - 1);
+      expect(table.nodes[4 * i]).toBe(Math.fround(arrays.phi[i]));
+      expect(table.nodes[4 * i + 1]).toBe(Math.fround(arrays.slope[i]));
+      expect(table.nodes[4 * i + 2]).toBe(Math.fround(arrays.phi[next]));
+      expect(table.nodes[4 * i + 3]).toBe(Math.fround(arrays.slope[next]));
+    }
+  });
+
   it('should give each segment an upper bound so that the bounds below psi count up to the segment of lib/relativity layout holding psi', () => {
     for (const [r, energy] of [[7, null], [2.4, 1], [1, 1]] as const) {
       const arrays = buildRayTableForRadialObserver(r, energy).toArrays();

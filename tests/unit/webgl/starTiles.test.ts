@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildStarField, STAR_CELL_SIZE } from '@/lib/render/starField';
 import { allocateCatalogue, type StarCatalogue } from '@/lib/render/starCatalogue';
 import { engineTemperatureFromBv } from '@/lib/render/engine';
-import { buildStarTileIndex, STAR_TILE_LEVELS, starTileOf, type StarTile } from '@/lib/webgl/starTiles';
+import { buildStarTileIndex, decodeStarEntry, STAR_TILE_LEVELS, starTileOf, unpackTile, type StarEntry, type StarTile } from '@/lib/webgl/starTiles';
 import { SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
 import { expectClose } from './close';
 
@@ -32,9 +32,11 @@ const index = buildStarTileIndex(field);
 function listOf(k: number, d: readonly number[]): { first: number; count: number } {
   const level = STAR_TILE_LEVELS[k];
   const t = starTileOf(d[0], d[1], d[2], level.tilesPerEdge, { face: 0, column: 0, row: 0 });
-  const texel = (index.firstRow[k] + t.row) * index.tiles.width + t.face * level.tilesPerEdge + t.column;
-  return { first: index.tiles.data[2 * texel], count: index.tiles.data[2 * texel + 1] };
+  const n = level.tilesPerEdge;
+  return unpackTile(index.tiles.data[index.levelOffset[k] + (t.face * n + t.row) * n + t.column], index.countBits);
 }
+
+const entry = (): StarEntry => ({ x: 0, y: 0, z: 0, flux: 0, logTemperature: 0 });
 
 describe('starTileOf', () => {
   it('should put each axis direction at the centre of its own cube face (common practice: cube-map faces by the largest component)', () => {
@@ -78,14 +80,14 @@ describe('buildStarTileIndex', () => {
       d = d.map((c) => c / len);
       STAR_TILE_LEVELS.forEach((level, k) => {
         const { first, count } = listOf(k, d);
-        const listed = new Set<string>();
-        for (let e = first; e < first + count; e++) listed.add(`${index.entries.data[4 * e]},${index.entries.data[4 * e + 1]},${index.entries.data[4 * e + 2]}`);
+        const listed = Array.from({ length: count }, (_, j) => decodeStarEntry(index, first + j, entry()));
         for (let s = 0; s < stars; s++) {
           const dist = Math.hypot(field.x[s] - d[0], field.y[s] - d[1], field.z[s] - d[2]);
           if (dist >= level.marginChord) continue;
           checked++;
-          const key = `${Math.fround(field.x[s])},${Math.fround(field.y[s])},${Math.fround(field.z[s])}`;
-          expect(listed.has(key), `level ${k}, star ${s} at chord ${dist}`).toBe(true);
+          // float32 storage of direction x flux: the decoded direction is within ~1e-7 of the star's
+          const found = listed.some((e) => Math.hypot(e.x - field.x[s], e.y - field.y[s], e.z - field.z[s]) < 1e-6);
+          expect(found, `level ${k}, star ${s} at chord ${dist}`).toBe(true);
         }
       });
     }
@@ -99,19 +101,51 @@ describe('buildStarTileIndex', () => {
 
   it('should have as many levels as the shader reads (shaders/sky.lensed.frag uStarTileLevels; common practice: one source of truth checked)', () => {
     expect(SKY_LENSED_FRAG).toContain(`uniform vec4 uStarTileLevels[${STAR_TILE_LEVELS.length}];`);
-    expect(index.firstRow.length).toBe(STAR_TILE_LEVELS.length);
+    expect(index.levelOffset.length).toBe(STAR_TILE_LEVELS.length);
   });
 
-  it('should carry each listed star flux and log temperature from lib/render buildStarField', () => {
-    const byPosition = new Map<string, number>();
-    for (let s = 0; s < field.count; s++) byPosition.set(`${Math.fround(field.x[s])},${Math.fround(field.y[s])},${Math.fround(field.z[s])}`, s);
+  it('should carry each listed star direction, flux and log temperature from lib/render buildStarField', () => {
+    const e1 = entry();
+    let checked = 0;
     for (let e = 0; e < index.entryCount; e += 97) {
-      const s = byPosition.get(`${index.entries.data[4 * e]},${index.entries.data[4 * e + 1]},${index.entries.data[4 * e + 2]}`);
-      expect(s).toBeDefined();
-      // float32 storage: relative rounding 6e-8
-      expectClose(index.entries.data[4 * e + 3], field.flux[s!], 1e-7 * field.flux[s!]);
-      expectClose(index.entryLogT.data[e], field.logTemperature[s!], 1e-6);
+      decodeStarEntry(index, e, e1);
+      // the star whose direction it carries (brute force)
+      let best = -1;
+      let bestDist = Infinity;
+      for (let s = 0; s < field.count; s++) {
+        const dist = Math.hypot(e1.x - field.x[s], e1.y - field.y[s], e1.z - field.z[s]);
+        if (dist < bestDist) {
+          bestDist = dist;
+          best = s;
+        }
+      }
+      // float32 storage: relative rounding 6e-8 per component
+      expect(bestDist).toBeLessThan(1e-6);
+      expectClose(e1.flux, field.flux[best], 3e-7 * field.flux[best]);
+      expectClose(e1.logTemperature, field.logTemperature[best], 1e-6);
+      checked++;
     }
+    expect(checked).toBeGreaterThan(100);
     expect(index.maxListLength).toBeGreaterThan(0);
+  });
+
+  it('should pack each tile as first entry and count, the lists covering the entries without gaps', () => {
+    let covered = 0;
+    let expectedFirst = 0;
+    const misplaced: string[] = [];
+    for (let k = 0; k < STAR_TILE_LEVELS.length; k++) {
+      const n = STAR_TILE_LEVELS[k].tilesPerEdge;
+      for (let t = 0; t < 6 * n * n; t++) {
+        const { first, count } = unpackTile(index.tiles.data[index.levelOffset[k] + t], index.countBits);
+        // lists are appended tile after tile, level after level
+        if (count > 0 && first !== expectedFirst) misplaced.push(`level ${k} tile ${t}: first ${first}, expected ${expectedFirst}`);
+        if (count > index.maxListLength) misplaced.push(`level ${k} tile ${t}: count ${count} over the longest list`);
+        expectedFirst = first + count;
+        covered += count;
+      }
+    }
+    expect(misplaced.slice(0, 5)).toEqual([]);
+    expect(covered).toBe(index.entryCount);
+    expect(2 ** index.countBits).toBeGreaterThan(index.maxListLength);
   });
 });

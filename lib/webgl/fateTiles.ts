@@ -1,0 +1,204 @@
+/**
+ * Screen tiles sorted by where their rays can end, so the WebGL view shades
+ * each pixel with only the code it can need. Software WebGL (SwiftShader)
+ * runs every instruction of a program for every pixel it rasterizes, taken
+ * or not, and it does not skip the shader for pixels a depth or stencil test
+ * rejects; only the drawn geometry limits its work. So the frame is cut into
+ * FATE_TILE_PX squares and each square is drawn with one of three programs:
+ * the sky program (stars, Milky Way; no horizon grids) where every ray
+ * reaches the sky, the surface program (horizon and far-side grids only)
+ * where every ray ends on r = 2M, and the full program where both can occur
+ * (or, in a dome master, where the tile crosses the image circle). Tiles wholly
+ * outside a dome master's circle are not drawn.
+ *
+ * A ray's fate depends only on its look angle psi from the outward radial
+ * direction (after the camera's aberration), through the ray table's
+ * segments (lib/relativity RayTable). A tile's rays all lie within an angle
+ * of its centre's ray (triangle inequality on the sphere), so the tile's psi
+ * lies in [psi_c - r, psi_c + r], and its class follows from the fates of the
+ * segments that interval meets. Every pixel's program therefore computes the
+ * same value the full program would (tests/unit/webgl/fateTiles.test.ts checks
+ * this against lib/webgl/sourceDirections.ts, pixel by pixel).
+ */
+import type { Projector } from '../render/projections';
+import { boostLookDirection } from '../relativity/boost';
+import { PROJECTION_CODES, type ProjectionConstants } from './projectionConstants';
+import type { PackedRayTable } from './rayTableTexture';
+
+/** Tile edge, pixels: small enough to hug the shadow's edge, large enough to keep the vertex count low. */
+export const FATE_TILE_PX = 16;
+
+/** Tile classes: not drawn (outside a dome master's circle), sky only, surface (r = 2M) only, either. */
+export const TILE_NONE = 0;
+export const TILE_SKY = 1;
+export const TILE_SURFACE = 2;
+export const TILE_MIXED = 3;
+
+/**
+ * Safety factor on a tile's angular radius: covers the curvature of its sampled edges between the sample
+ * points (a few percent for 16 px tiles even under strong aberration), and float32 rounding on the GPU.
+ */
+const RADIUS_SAFETY = 1.25;
+
+/** The tiles of one frame. */
+export interface FateTiles {
+  tilesX: number;
+  tilesY: number;
+  /** class of tile (column tx, row ty from the top) at ty * tilesX + tx */
+  classes: Uint8Array;
+}
+
+/** What the classifier needs of a GPU frame (lib/webgl prepareGpuFrame). */
+export interface FateTileFrame {
+  width: number;
+  height: number;
+  projection: ProjectionConstants;
+  /** view space -> camera frame, row-major 3x3 */
+  viewToCamera: Float64Array;
+  /** camera velocity relative to the reference observer, camera frame, units of c */
+  boostVelocity: Float64Array;
+  /** packed ray table (fates per psi segment) */
+  table: PackedRayTable;
+}
+
+/** Ray table segment holding look angle psi: the number of upper bounds below it (the shader's rule). */
+function segmentOf(table: PackedRayTable, psi: number): number {
+  let seg = 0;
+  for (let k = 0; k < table.segmentCount - 1; k++) if (psi > table.segmentHi[k]) seg++;
+  return seg;
+}
+
+/**
+ * Class of the look-angle interval [lo, hi]: sky if every segment it meets ends on the sky (fate 0), surface
+ * if none does, mixed otherwise.
+ */
+function intervalClass(table: PackedRayTable, lo: number, hi: number): number {
+  const first = segmentOf(table, lo);
+  const last = segmentOf(table, hi);
+  let sky = false;
+  let surface = false;
+  for (let k = first; k <= last; k++) {
+    if (table.segmentA[4 * k + 3] === 0) sky = true;
+    else surface = true;
+  }
+  return sky && surface ? TILE_MIXED : sky ? TILE_SKY : TILE_SURFACE;
+}
+
+/**
+ * Sort a frame's tiles by where their rays can end.
+ * @param frame the GPU frame (its ray table must be present: lensing on)
+ * @param projector lib/render projector of the same projection and size
+ * @param tilePx tile edge in pixels (default FATE_TILE_PX)
+ * @returns the tile classes
+ * @throws RangeError for a tile size below 1 px
+ */
+export function classifyFateTiles(frame: FateTileFrame, projector: Projector, tilePx = FATE_TILE_PX): FateTiles {
+  if (!(Number.isInteger(tilePx) && tilePx >= 1)) throw new RangeError(`tilePx must be an integer >= 1; got ${tilePx}`);
+  const { width, height, table } = frame;
+  const tilesX = Math.ceil(width / tilePx);
+  const tilesY = Math.ceil(height / tilePx);
+  const classes = new Uint8Array(tilesX * tilesY);
+  const dome = frame.projection.kind === PROJECTION_CODES.dome;
+  const circlePx = dome ? frame.projection.halfApertureRad / frame.projection.radPerPx : Infinity;
+  const m = frame.viewToCamera;
+  const v = frame.boostVelocity;
+  const speed = Math.hypot(v[0], v[1], v[2]);
+  // largest local angular scale of aberration (Einstein 1905): sqrt((1 + v) / (1 - v))
+  const maxDoppler = Math.sqrt((1 + speed) / (1 - speed));
+  const view = new Float64Array(3);
+  const camera = new Float64Array(3);
+  const reference = new Float64Array(3);
+  const centre = new Float64Array(3);
+  // reference-frame direction of frame point (px, py) into out; returns the pixel's angular size or -1 outside
+  const directionAt = (out: Float64Array, px: number, py: number): number => {
+    const pixelRad = projector.pixelToView(view, px, py);
+    if (pixelRad < 0) return -1;
+    camera[0] = m[0] * view[0] + m[1] * view[1] + m[2] * view[2];
+    camera[1] = m[3] * view[0] + m[4] * view[1] + m[5] * view[2];
+    camera[2] = m[6] * view[0] + m[7] * view[1] + m[8] * view[2];
+    boostLookDirection(out, camera, v);
+    return pixelRad;
+  };
+  for (let ty = 0; ty < tilesY; ty++) {
+    for (let tx = 0; tx < tilesX; tx++) {
+      const x0 = tx * tilePx;
+      const y0 = ty * tilePx;
+      const x1 = Math.min(width, x0 + tilePx);
+      const y1 = Math.min(height, y0 + tilePx);
+      const index = ty * tilesX + tx;
+      if (dome) {
+        // distance from the frame centre to the tile's nearest and farthest points
+        const cx = width / 2;
+        const cy = height / 2;
+        const nearX = Math.max(x0 - cx, 0, cx - x1);
+        const nearY = Math.max(y0 - cy, 0, cy - y1);
+        const farX = Math.max(Math.abs(x0 - cx), Math.abs(x1 - cx));
+        const farY = Math.max(Math.abs(y0 - cy), Math.abs(y1 - cy));
+        if (Math.hypot(nearX, nearY) > circlePx + 1) {
+          classes[index] = TILE_NONE;
+          continue;
+        }
+        if (Math.hypot(farX, farY) > circlePx - 1) {
+          classes[index] = TILE_MIXED;
+          continue;
+        }
+      }
+      const pixelRad = directionAt(centre, (x0 + x1) / 2, (y0 + y1) / 2);
+      if (pixelRad < 0) {
+        classes[index] = TILE_MIXED;
+        continue;
+      }
+      // angular radius: the farthest of the tile's corners and edge midpoints from its centre, with margins
+      let radius = 0;
+      for (let j = 0; j <= 2; j++) {
+        for (let i = 0; i <= 2; i++) {
+          if (i === 1 && j === 1) continue;
+          if (directionAt(reference, x0 + ((x1 - x0) * i) / 2, y0 + ((y1 - y0) * j) / 2) < 0) continue;
+          const dot = centre[0] * reference[0] + centre[1] * reference[1] + centre[2] * reference[2];
+          const cross = Math.hypot(
+            centre[1] * reference[2] - centre[2] * reference[1],
+            centre[2] * reference[0] - centre[0] * reference[2],
+            centre[0] * reference[1] - centre[1] * reference[0],
+          );
+          radius = Math.max(radius, Math.atan2(cross, dot));
+        }
+      }
+      radius = radius * RADIUS_SAFETY + 2 * pixelRad * maxDoppler;
+      const psi = Math.atan2(Math.hypot(centre[1], centre[2]), centre[0]);
+      classes[index] = intervalClass(table, Math.max(0, psi - radius), Math.min(Math.PI, psi + radius));
+    }
+  }
+  return { tilesX, tilesY, classes };
+}
+
+/**
+ * Clip-space triangles (x, y, z per vertex; two triangles per tile) of the tiles of one class.
+ * @param tiles classified tiles
+ * @param tileClass TILE_SKY, TILE_SURFACE or TILE_MIXED
+ * @param width frame width, px
+ * @param height frame height, px
+ * @param out receives the vertices; needs 18 floats per tile of the frame
+ * @param tilePx tile edge in pixels, as classified
+ * @returns the number of vertices written
+ */
+export function tileTriangles(tiles: FateTiles, tileClass: number, width: number, height: number, out: Float32Array, tilePx = FATE_TILE_PX): number {
+  let n = 0;
+  for (let ty = 0; ty < tiles.tilesY; ty++) {
+    for (let tx = 0; tx < tiles.tilesX; tx++) {
+      if (tiles.classes[ty * tiles.tilesX + tx] !== tileClass) continue;
+      const left = (2 * tx * tilePx) / width - 1;
+      const right = (2 * Math.min(width, (tx + 1) * tilePx)) / width - 1;
+      const top = 1 - (2 * ty * tilePx) / height;
+      const bottom = 1 - (2 * Math.min(height, (ty + 1) * tilePx)) / height;
+      // (left, top), (left, bottom), (right, top); (right, top), (left, bottom), (right, bottom)
+      const corners = [left, top, left, bottom, right, top, right, top, left, bottom, right, bottom];
+      for (let k = 0; k < 6; k++) {
+        out[3 * n] = corners[2 * k];
+        out[3 * n + 1] = corners[2 * k + 1];
+        out[3 * n + 2] = 0;
+        n++;
+      }
+    }
+  }
+  return n;
+}

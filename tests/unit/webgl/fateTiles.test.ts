@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest';
+import { parseFrameRequest } from '@/lib/render/schema';
+import { prepareFrame } from '@/lib/render/frame';
+import { createProjector } from '@/lib/render/projections';
+import { prepareGpuFrame } from '@/lib/webgl/gpuFrame';
+import { classifyFateTiles, tileTriangles, TILE_MIXED, TILE_NONE, TILE_SKY, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { renderSourceDirections } from '@/lib/webgl/sourceDirections';
+
+// Circular geodesic at r = 6M: energy (1 - 2/r) / sqrt(1 - 3/r), angular momentum sqrt(r) / sqrt(1 - 3/r)
+// (Hartle 2003, Gravity, eqs. 9.30-9.31, with M = 1).
+const ORBIT_6M = { kind: 'fourVelocity', radiusM: 6, energy: (2 / 3) / Math.sqrt(0.5), angularMomentum: Math.sqrt(6) / Math.sqrt(0.5) };
+
+const CASES = [
+  { name: 'hovering at 3.5 M looking at the hole, flat', state: { kind: 'hover', radiusM: 3.5 }, look: [-1, 0.9, 0.1], projection: { kind: 'flat', fovDeg: 90 }, width: 288, height: 192 },
+  { name: 'falling at 1.2 M (inside the horizon), flat', state: { kind: 'radial', radiusM: 1.2, energy: 1 }, look: [-0.3, 1, 0.2], projection: { kind: 'flat', fovDeg: 100 }, width: 288, height: 192 },
+  { name: 'falling at 0.5 M, dome master tilted', state: { kind: 'radial', radiusM: 0.5, energy: 1 }, look: [1, 0.3, 0], projection: { kind: 'dome', apertureDeg: 180 }, width: 240, height: 240 },
+  { name: 'hovering at 3.5 M, dome master', state: { kind: 'hover', radiusM: 3.5 }, look: [-1, 0.4, 0], projection: { kind: 'dome', apertureDeg: 200 }, width: 240, height: 240 },
+  { name: 'circular orbit at 6 M (aberration), flat', state: ORBIT_6M, look: [-1, -0.5, 0.2], projection: { kind: 'flat', fovDeg: 70 }, width: 288, height: 192 },
+  { name: 'plunging with angular momentum at 2.5 M, equirectangular', state: { kind: 'fourVelocity', radiusM: 2.5, energy: 1, angularMomentum: 3.9 }, look: [-1, 0, 0], projection: { kind: 'equirect' }, width: 288, height: 144 },
+];
+
+function request(c: (typeof CASES)[number]) {
+  return parseFrameRequest({ camera: { state: c.state, look: c.look, up: [0, 0, 1] }, projection: c.projection, width: c.width, height: c.height, sky: { stars: { enabled: false }, milkyWay: { enabled: false } } });
+}
+
+describe('classifyFateTiles', () => {
+  for (const c of CASES) {
+    for (const tilePx of [16]) {
+      it(`should give every pixel the program its ray needs: ${c.name}, ${tilePx} px tiles`, () => {
+        const req = request(c);
+        const frame = prepareGpuFrame(req);
+        const tiles = classifyFateTiles({ ...frame, table: frame.table! }, createProjector(req.projection, req.width, req.height), tilePx);
+        // reference: lib/render's own per-pixel trace (fate 0 sky, 1 horizon, 2 far side, -1 outside the image)
+        const directions = renderSourceDirections(prepareFrame(req, {}));
+        const counts = [0, 0, 0, 0];
+        for (let y = 0; y < req.height; y++) {
+          for (let x = 0; x < req.width; x++) {
+            const tileClass = tiles.classes[Math.floor(y / tilePx) * tiles.tilesX + Math.floor(x / tilePx)];
+            const fate = directions[5 * (y * req.width + x) + 3];
+            counts[tileClass]++;
+            if (tileClass === TILE_NONE) expect(fate, `pixel ${x},${y}`).toBe(-1);
+            if (tileClass === TILE_SKY) expect(fate, `pixel ${x},${y}`).toBe(0);
+            if (tileClass === TILE_SURFACE) expect([1, 2], `pixel ${x},${y}`).toContain(fate);
+          }
+        }
+        // the split pays: most pixels get a program without the other side's work
+        expect(counts[TILE_MIXED]).toBeLessThan(0.5 * req.width * req.height);
+        expect(counts[TILE_SKY] + counts[TILE_SURFACE]).toBeGreaterThan(0);
+      });
+    }
+  }
+
+  it('should mark a frame without the hole in view as all sky', () => {
+    const req = parseFrameRequest({ camera: { state: { kind: 'hover', radiusM: 20 }, look: [1, 0, 0], up: [0, 0, 1] }, projection: { kind: 'flat', fovDeg: 60 }, width: 64, height: 32 });
+    const frame = prepareGpuFrame(req);
+    const tiles = classifyFateTiles({ ...frame, table: frame.table! }, createProjector(req.projection, 64, 32));
+    expect(Array.from(tiles.classes).every((k) => k === TILE_SKY)).toBe(true);
+  });
+
+  it('should reject a tile size below one pixel', () => {
+    const req = request(CASES[0]);
+    const frame = prepareGpuFrame(req);
+    expect(() => classifyFateTiles({ ...frame, table: frame.table! }, createProjector(req.projection, req.width, req.height), 0)).toThrow(/tilePx/);
+  });
+});
+
+describe('tileTriangles', () => {
+  it('should cover each tile of a class once, edge frames clipped to the frame (areas in clip space)', () => {
+    // 40 x 24 px in 16 px tiles: columns 16, 16, 8 px wide; rows 16, 8 px high
+    const tiles = { tilesX: 3, tilesY: 2, classes: Uint8Array.from([TILE_SKY, TILE_SURFACE, TILE_SKY, TILE_MIXED, TILE_SKY, TILE_NONE]) };
+    const out = new Float32Array(18 * 6);
+    const area = (n: number) => {
+      let sum = 0;
+      for (let k = 0; k < n; k += 3) {
+        const [ax, ay, bx, by, cx, cy] = [out[3 * k], out[3 * k + 1], out[3 * k + 3], out[3 * k + 4], out[3 * k + 6], out[3 * k + 7]];
+        sum += Math.abs((bx - ax) * (cy - ay) - (cx - ax) * (by - ay)) / 2;
+      }
+      return sum;
+    };
+    const pxArea = (2 / 40) * (2 / 24);
+    expect(tileTriangles(tiles, TILE_SKY, 40, 24, out, 16)).toBe(18);
+    expect(area(18)).toBeCloseTo((16 * 16 + 8 * 16 + 16 * 8) * pxArea, 6);
+    expect(tileTriangles(tiles, TILE_NONE, 40, 24, out, 16)).toBe(6);
+    expect(tileTriangles(tiles, TILE_MIXED, 40, 24, out, 16)).toBe(6);
+    expect(area(6)).toBeCloseTo(16 * 8 * pxArea, 6);
+    // the mixed tile is the bottom-left one: x from -1 to -1 + 32/40, y from 1 - 32/24 to -1
+    expect(Math.min(out[0], out[3], out[6])).toBeCloseTo(-1, 6);
+    expect(Math.min(out[1], out[4], out[7])).toBeCloseTo(-1, 6);
+    expect(Math.max(out[1], out[4], out[7])).toBeCloseTo(1 - 32 / 24, 6);
+  });
+});
