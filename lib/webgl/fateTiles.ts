@@ -108,23 +108,35 @@ export function classifyFateTiles(frame: FateTileFrame, projector: Projector, ti
   const view = new Float64Array(3);
   const camera = new Float64Array(3);
   const reference = new Float64Array(3);
-  const centre = new Float64Array(3);
-  // reference-frame direction of frame point (px, py) into out; returns the pixel's angular size or -1 outside
-  const directionAt = (out: Float64Array, px: number, py: number): number => {
-    const pixelRad = projector.pixelToView(view, px, py);
-    if (pixelRad < 0) return -1;
-    camera[0] = m[0] * view[0] + m[1] * view[1] + m[2] * view[2];
-    camera[1] = m[3] * view[0] + m[4] * view[1] + m[5] * view[2];
-    camera[2] = m[6] * view[0] + m[7] * view[1] + m[8] * view[2];
-    boostLookDirection(out, camera, v);
-    return pixelRad;
-  };
+  // reference-frame directions on a half-tile grid (tile corners, edge midpoints and centres, each computed
+  // once and shared by neighbouring tiles), with the pixel's angular size there, or -1 outside the image
+  const gridX = 2 * tilesX + 1;
+  const gridY = 2 * tilesY + 1;
+  const xs = Float64Array.from({ length: gridX }, (_, i) => (i % 2 === 0 ? Math.min(width, (i / 2) * tilePx) : (Math.floor(i / 2) * tilePx + Math.min(width, (Math.floor(i / 2) + 1) * tilePx)) / 2));
+  const ys = Float64Array.from({ length: gridY }, (_, j) => (j % 2 === 0 ? Math.min(height, (j / 2) * tilePx) : (Math.floor(j / 2) * tilePx + Math.min(height, (Math.floor(j / 2) + 1) * tilePx)) / 2));
+  const dirs = new Float64Array(3 * gridX * gridY);
+  const pixelRads = new Float64Array(gridX * gridY);
+  for (let j = 0; j < gridY; j++) {
+    for (let i = 0; i < gridX; i++) {
+      const g = j * gridX + i;
+      const pixelRad = projector.pixelToView(view, xs[i], ys[j]);
+      pixelRads[g] = pixelRad;
+      if (pixelRad < 0) continue;
+      camera[0] = m[0] * view[0] + m[1] * view[1] + m[2] * view[2];
+      camera[1] = m[3] * view[0] + m[4] * view[1] + m[5] * view[2];
+      camera[2] = m[6] * view[0] + m[7] * view[1] + m[8] * view[2];
+      boostLookDirection(reference, camera, v);
+      dirs[3 * g] = reference[0];
+      dirs[3 * g + 1] = reference[1];
+      dirs[3 * g + 2] = reference[2];
+    }
+  }
   for (let ty = 0; ty < tilesY; ty++) {
     for (let tx = 0; tx < tilesX; tx++) {
-      const x0 = tx * tilePx;
-      const y0 = ty * tilePx;
-      const x1 = Math.min(width, x0 + tilePx);
-      const y1 = Math.min(height, y0 + tilePx);
+      const x0 = xs[2 * tx];
+      const x1 = xs[2 * tx + 2];
+      const y0 = ys[2 * ty];
+      const y1 = ys[2 * ty + 2];
       const index = ty * tilesX + tx;
       if (dome) {
         // distance from the frame centre to the tile's nearest and farthest points
@@ -143,32 +155,39 @@ export function classifyFateTiles(frame: FateTileFrame, projector: Projector, ti
           continue;
         }
       }
-      const pixelRad = directionAt(centre, (x0 + x1) / 2, (y0 + y1) / 2);
+      const c = (2 * ty + 1) * gridX + 2 * tx + 1;
+      const pixelRad = pixelRads[c];
       if (pixelRad < 0) {
         classes[index] = TILE_MIXED;
         continue;
       }
-      // angular radius: the farthest of the tile's corners and edge midpoints from its centre, with margins
-      let radius = 0;
+      // angular radius: the farthest of the tile's corners and edge midpoints from its centre (largest chord,
+      // then its angle), with margins
+      let chord2 = 0;
       for (let j = 0; j <= 2; j++) {
         for (let i = 0; i <= 2; i++) {
-          if (i === 1 && j === 1) continue;
-          if (directionAt(reference, x0 + ((x1 - x0) * i) / 2, y0 + ((y1 - y0) * j) / 2) < 0) continue;
-          const dot = centre[0] * reference[0] + centre[1] * reference[1] + centre[2] * reference[2];
-          const cross = Math.hypot(
-            centre[1] * reference[2] - centre[2] * reference[1],
-            centre[2] * reference[0] - centre[0] * reference[2],
-            centre[0] * reference[1] - centre[1] * reference[0],
-          );
-          radius = Math.max(radius, Math.atan2(cross, dot));
+          const g = (2 * ty + j) * gridX + 2 * tx + i;
+          if (g === c || pixelRads[g] < 0) continue;
+          const ex = dirs[3 * g] - dirs[3 * c];
+          const ey = dirs[3 * g + 1] - dirs[3 * c + 1];
+          const ez = dirs[3 * g + 2] - dirs[3 * c + 2];
+          chord2 = Math.max(chord2, ex * ex + ey * ey + ez * ez);
         }
       }
-      radius = radius * RADIUS_SAFETY + 2 * pixelRad * maxDoppler;
-      const psi = Math.atan2(Math.hypot(centre[1], centre[2]), centre[0]);
+      const radius = 2 * Math.asin(Math.min(1, Math.sqrt(chord2) / 2)) * RADIUS_SAFETY + 2 * pixelRad * maxDoppler;
+      const psi = Math.atan2(Math.hypot(dirs[3 * c + 1], dirs[3 * c + 2]), dirs[3 * c]);
       classes[index] = intervalClass(table, Math.max(0, psi - radius), Math.min(Math.PI, psi + radius));
     }
   }
   return { tilesX, tilesY, classes };
+}
+
+/** Write clip-space vertex n (z = 0); returns n + 1. */
+function vertex(out: Float32Array, n: number, x: number, y: number): number {
+  out[3 * n] = x;
+  out[3 * n + 1] = y;
+  out[3 * n + 2] = 0;
+  return n + 1;
 }
 
 /**
@@ -191,13 +210,12 @@ export function tileTriangles(tiles: FateTiles, tileClass: number, width: number
       const top = 1 - (2 * ty * tilePx) / height;
       const bottom = 1 - (2 * Math.min(height, (ty + 1) * tilePx)) / height;
       // (left, top), (left, bottom), (right, top); (right, top), (left, bottom), (right, bottom)
-      const corners = [left, top, left, bottom, right, top, right, top, left, bottom, right, bottom];
-      for (let k = 0; k < 6; k++) {
-        out[3 * n] = corners[2 * k];
-        out[3 * n + 1] = corners[2 * k + 1];
-        out[3 * n + 2] = 0;
-        n++;
-      }
+      n = vertex(out, n, left, top);
+      n = vertex(out, n, left, bottom);
+      n = vertex(out, n, right, top);
+      n = vertex(out, n, right, top);
+      n = vertex(out, n, left, bottom);
+      n = vertex(out, n, right, bottom);
     }
   }
   return n;

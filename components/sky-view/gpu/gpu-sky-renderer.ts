@@ -88,9 +88,11 @@ export class GpuSkyRenderer {
   /** the programs of the last prepared frame */
   private lensed: THREE.RawShaderMaterial;
   private directions: THREE.RawShaderMaterial;
-  /** the frame's tiles by class (sky, surface, mixed), or null to draw one full-frame quad */
+  /** the frame's tiles by class (sky, surface, mixed), drawn instead of the full-frame quad when `tiled` */
   private readonly tiles: Record<'sky' | 'surface' | 'mixed', TileMesh>;
   private tiled = false;
+  /** inputs of the last tile sort */
+  private tilesKey = '';
   private readonly uniforms: Record<string, THREE.IUniform>;
   private readonly rayTable = new RayTableTexture();
   private readonly placeholder = dataTexture({ width: 1, height: 1, channels: 4, data: new Float32Array(4) });
@@ -269,18 +271,26 @@ export class GpuSkyRenderer {
     });
     this.lensed = this.program(SKY_LENSED_FRAG, defines);
     this.directions = this.program(SKY_DIRECTIONS_FRAG, directionsShaderDefines(frame));
-    this.tiled = fateTilesPay(frame) && frame.table !== null;
-    if (this.tiled && frame.table) {
-      const tiles = classifyFateTiles({ ...frame, table: frame.table }, createProjector(req.projection, frame.width, frame.height));
-      const floats = 18 * tiles.classes.length;
+    this.tiled = fateTilesPay(frame);
+    if (this.tiled) {
       const programs = tileShaderDefines(defines);
       this.tiles.sky.mesh.material = this.program(SKY_LENSED_FRAG, programs.sky);
       this.tiles.surface.mesh.material = this.program(SKY_LENSED_FRAG, programs.surface);
       this.tiles.mixed.mesh.material = this.lensed;
-      this.tiles.sky.fill((out) => tileTriangles(tiles, TILE_SKY, frame.width, frame.height, out), floats);
-      this.tiles.surface.fill((out) => tileTriangles(tiles, TILE_SURFACE, frame.width, frame.height, out), floats);
-      this.tiles.mixed.fill((out) => tileTriangles(tiles, TILE_MIXED, frame.width, frame.height, out), floats);
+      this.fillTiles(frame, req);
     }
+  }
+
+  /** Sort the frame's screen tiles (again only when the view, the camera state or the frame size changed). */
+  private fillTiles(frame: GpuFrame, req: FrameRequest): void {
+    const key = JSON.stringify([req.camera, req.projection, req.width, req.height]);
+    if (key === this.tilesKey || !frame.table) return;
+    this.tilesKey = key;
+    const tiles = classifyFateTiles({ ...frame, table: frame.table }, createProjector(req.projection, frame.width, frame.height));
+    const floats = 18 * tiles.classes.length;
+    this.tiles.sky.fill((out) => tileTriangles(tiles, TILE_SKY, frame.width, frame.height, out), floats);
+    this.tiles.surface.fill((out) => tileTriangles(tiles, TILE_SURFACE, frame.width, frame.height, out), floats);
+    this.tiles.mixed.fill((out) => tileTriangles(tiles, TILE_MIXED, frame.width, frame.height, out), floats);
   }
 
   /** Draw the full-frame quad with a material, or (null) the frame's tiles. */
