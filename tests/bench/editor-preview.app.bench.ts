@@ -163,6 +163,7 @@ async function main(): Promise<void> {
   // only what changed, while WebGL still runs in SwiftShader.
   const compositors = [
     { label: 'compositing in SwiftShader (headless default)', args: ARGS, fullFrames: true },
+    { label: 'compositing in SwiftShader, light frames when slow (the editor default)', args: ARGS, fullFrames: false },
     { label: 'software compositing (--disable-gpu-compositing, as desktop Chromium without a GPU)', args: [...ARGS, '--disable-gpu-compositing'], fullFrames: true },
     { label: 'software compositing, light frames when slow (the editor default)', args: [...ARGS, '--disable-gpu-compositing'], fullFrames: false },
   ];
