@@ -31,7 +31,7 @@
 //   uStarTileEntries    sampler2D RGBA float: unit vector times flux (mag-0 units), and ln(T / 1 K), of the star
 //                       of each list entry, 1024 wide
 //   uMaxTileList        int     longest tile list (loop bound)
-//   uStarTileLevels[3]  vec4    per level, narrowest margin first: (tiles per face edge, largest kernel reach
+//   uStarTileLevels[4]  vec4    per level, narrowest margin first: (tiles per face edge, largest kernel reach
 //                       served (3 sigma, chord of unit vectors), first tile in uStarTiles, 0)
 //   uDiffuse            sampler2D RGBA float mip-mapped equirect (Milky Way per sr, star flux per sr,
 //                       star flux x K per sr);  uDiffuseTexelRad float (radians)
@@ -91,7 +91,7 @@ uniform highp usampler2D uStarTiles;
 uniform highp sampler2D uStarTileEntries;
 uniform int uMaxTileList;
 uniform int uStarTileCountBits;
-uniform vec4 uStarTileLevels[3];
+uniform vec4 uStarTileLevels[4];
 uniform highp sampler2D uDiffuse;
 uniform float uDiffuseTexelRad;
 uniform float uMilkyWayGain;
@@ -144,7 +144,8 @@ vec2 starLight(vec3 d, float sigma, float weight) {
   float reach2 = reach * reach;
   float inv2s2 = 1.0 / (2.0 * sigma * sigma);
   float norm = uStarGain * weight / (2.0 * PI * sigma * sigma);
-  vec4 level = uStarTileLevels[2];
+  vec4 level = uStarTileLevels[3];
+  if (reach <= uStarTileLevels[2].y) level = uStarTileLevels[2];
   if (reach <= uStarTileLevels[1].y) level = uStarTileLevels[1];
   if (reach <= uStarTileLevels[0].y) level = uStarTileLevels[0];
   uint list = texelFetch(uStarTiles, arrayTexel(starTileIndex(d, level.x, int(level.z + 0.5))), 0).r;
