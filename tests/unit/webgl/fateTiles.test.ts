@@ -16,6 +16,7 @@ const CASES = [
   { name: 'falling at 0.5 M, dome master tilted', state: { kind: 'radial', radiusM: 0.5, energy: 1 }, look: [1, 0.3, 0], projection: { kind: 'dome', apertureDeg: 180 }, width: 240, height: 240 },
   { name: 'hovering at 3.5 M, dome master', state: { kind: 'hover', radiusM: 3.5 }, look: [-1, 0.4, 0], projection: { kind: 'dome', apertureDeg: 200 }, width: 240, height: 240 },
   { name: 'circular orbit at 6 M (aberration), flat', state: ORBIT_6M, look: [-1, -0.5, 0.2], projection: { kind: 'flat', fovDeg: 70 }, width: 288, height: 192 },
+  { name: 'hovering at 3 M, cube face (left)', state: { kind: 'hover', radiusM: 3 }, look: [-1, 0.6, 0.2], projection: { kind: 'cubeFace', face: 'left' }, width: 192, height: 192 },
   { name: 'plunging with angular momentum at 2.5 M, equirectangular', state: { kind: 'fourVelocity', radiusM: 2.5, energy: 1, angularMomentum: 3.9 }, look: [-1, 0, 0], projection: { kind: 'equirect' }, width: 288, height: 144 },
 ];
 
