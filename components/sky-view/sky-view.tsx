@@ -29,7 +29,7 @@ export interface SkyViewProps {
   onPathChange?: (path: SkyViewPath) => void;
   /** called after each frame the WebGL path draws */
   onFrame?: () => void;
-  /** width frames are shown at, px, on either path: a smaller request is scaled up to it (default: the request's width) */
+  /** width frames are shown at, px, on either path: the request is scaled to it (default: the request's width) */
   displayWidth?: number;
 }
 

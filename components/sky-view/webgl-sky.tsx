@@ -23,7 +23,7 @@ interface WebGlSkyProps {
   /** called when the context is lost or the sky data cannot be loaded */
   onFailure: (reason: string) => void;
   onFrame?: (info: { tableBuildMs: number }) => void;
-  /** width to show the frame at, px; a smaller frame is scaled up by a CSS transform, which leaves its drawing size alone */
+  /** width to show the frame at, px; the frame is scaled to it by a CSS transform, which leaves its drawing size alone */
   displayWidth?: number;
 }
 
@@ -86,11 +86,11 @@ export function WebGlSky({ request, mode, assetBase, onFailure, onFrame, display
       clearTimeout(timer);
     };
   }, [assetBase, limit, onFailure, hasSky]);
-  // The canvas keeps the request's size and a transform scales it up: r3f sizes its drawing buffer from the
-  // box's offset size (resize.offsetSize), which a transform leaves alone.
-  const scale = displayWidth && displayWidth > request.width ? displayWidth / request.width : 1;
+  // The canvas keeps the request's size and a transform scales it to the display width: r3f sizes its drawing
+  // buffer from the box's offset size (resize.offsetSize), which a transform leaves alone.
+  const scale = displayWidth && displayWidth > 0 ? displayWidth / request.width : 1;
   return (
-    <div style={{ width: request.width * scale, height: request.height * scale }} data-testid="sky-view-webgl" data-ready={sky && sky.magnitudeLimit === limit ? 'true' : 'false'}>
+    <div style={{ width: request.width * scale, height: request.height * scale, overflow: 'hidden' }} data-testid="sky-view-webgl" data-ready={sky && sky.magnitudeLimit === limit ? 'true' : 'false'}>
       <div style={{ width: request.width, height: request.height, transform: scale === 1 ? undefined : `scale(${scale})`, transformOrigin: '0 0' }}>
         {sky ? (
           <WebGlFailureBoundary onFailure={onFailure}>

@@ -237,6 +237,20 @@ test.describe('scene editor', () => {
     await page.getByTestId('play').click();
   });
 
+  test('should scale the preview down to a column narrower than the frame, keeping its full-size drawing', async ({ page }) => {
+    const { first } = await openDropSceneAsProducer(page);
+    await page.setViewportSize({ width: 560, height: 800 });
+    const box = page.getByTestId('sky-view-webgl');
+    const section = page.getByRole('region', { name: 'Preview' });
+    await expect.poll(async () => (await box.boundingBox())!.width).toBeLessThan(first.request.width as number);
+    const shown = (await box.boundingBox())!;
+    const column = (await section.boundingBox())!;
+    expect(shown.x + shown.width).toBeLessThanOrEqual(column.x + column.width);
+    // same aspect, and the canvas still draws the request's own pixels
+    expect(shown.height / shown.width).toBeCloseTo((first.request.height as number) / (first.request.width as number), 2);
+    expect(await box.locator('canvas').evaluate((c: HTMLCanvasElement) => [c.width, c.height])).toEqual([first.request.width, first.request.height]);
+  });
+
   test('should fall back to the CPU renderer when WebGL is lost, with light frames while scrubbing and full detail at rest', async ({ page }) => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));

@@ -49,7 +49,7 @@ export function EditorWorkspace({
   return (
     <PlayheadContext.Provider value={playhead}>
       <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_18rem]">
-        <section className="space-y-3 rounded-lg border border-ink-700 bg-ink-800/80 p-4" aria-label="Preview">
+        <section className="min-w-0 space-y-3 rounded-lg border border-ink-700 bg-ink-800/80 p-4" aria-label="Preview">
           <ScenePreview live={live} tau={tau} scrubbing={scrubbing} stale={valid === false} />
           {timing ? (
             <Scrubber start={timing.screenStartS} end={timing.screenEndS} value={clampedScreen} tauSeconds={secondsPerM ? tau * secondsPerM : null} onChange={setScreenTime} onScrubbing={setScrubbing} />

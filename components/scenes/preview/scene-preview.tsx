@@ -5,9 +5,10 @@ import { frameRequestAt, frameSizeFor } from '@/lib/scenes/frame-request';
 import type { FrameRequest } from '@/lib/render/schema';
 import { SkyView, type SkyViewPath } from '@/components/sky-view/sky-view';
 import type { LiveScene } from '../editor/use-live-scene';
+import { useElementWidth } from '@/components/ui/use-element-width';
 import { useFullFramesChoice, useSlowWebGl } from './light-frames';
 
-/** Display box of the preview, px. Full detail renders at this size (1:1). */
+/** Display box of the preview, px: full detail renders at this size, shown 1:1 where the column is wide enough. */
 export const PREVIEW_WIDTH = 640;
 export const PREVIEW_HEIGHT = 360;
 /**
@@ -77,21 +78,24 @@ export function ScenePreview({ live, tau, scrubbing, stale }: { live: LiveScene 
   const fresh = built && !(built instanceof Error) ? built : null;
   if (fresh && fresh !== lastGood) setLastGood(fresh);
   const request = fresh ?? lastGood;
-  // light frames are scaled up to this box
+  // light frames are scaled up to this box; in a column narrower than the frame, every frame is scaled down to it
   const fullWidth = live ? frameSizeFor(live.spec.projection, PREVIEW_WIDTH, PREVIEW_HEIGHT).width : PREVIEW_WIDTH;
+  const columnRef = useRef<HTMLDivElement>(null);
+  const columnWidth = useElementWidth(columnRef);
+  const shownWidth = columnWidth ? Math.min(fullWidth, Math.floor(columnWidth)) : fullWidth;
   const requestError = built instanceof Error ? built.message : null;
   const requestJson = useMemo(() => (request ? JSON.stringify(request) : ''), [request]);
 
   return (
-    <div className="space-y-1">
+    <div className="min-w-0 space-y-1" ref={columnRef}>
       <div
-        className={`relative max-w-full overflow-x-auto ${stale ? 'opacity-60' : ''}`}
-        style={{ width: fullWidth }}
+        className={`relative max-w-full ${stale ? 'opacity-60' : ''}`}
+        style={{ width: shownWidth }}
         aria-label="Live preview of the camera's view"
         role="group"
       >
         {request ? (
-          <SkyView request={request} onPathChange={setPath} onFrame={webgl.onFrame} displayWidth={fullWidth} />
+          <SkyView request={request} onPathChange={setPath} onFrame={webgl.onFrame} displayWidth={shownWidth} />
         ) : (
           <div className="flex aspect-video w-full items-center justify-center rounded-md border border-ink-700 bg-black text-xs text-slate-500">No valid scene to preview yet.</div>
         )}
