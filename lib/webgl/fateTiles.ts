@@ -22,8 +22,9 @@
  */
 import type { Projector } from '../render/projections';
 import { boostLookDirection } from '../relativity/boost';
+import { FATE_SKY } from '../relativity/rayTable';
 import { PROJECTION_CODES, type ProjectionConstants } from './projectionConstants';
-import type { PackedRayTable } from './rayTableTexture';
+import { packedSegmentOf, type PackedRayTable } from './rayTableTexture';
 
 /** Tile edge, pixels: small enough to hug the shadow's edge, large enough to keep the vertex count low. */
 export const FATE_TILE_PX = 16;
@@ -61,24 +62,17 @@ export interface FateTileFrame {
   table: PackedRayTable;
 }
 
-/** Ray table segment holding look angle psi: the number of upper bounds below it (the shader's rule). */
-function segmentOf(table: PackedRayTable, psi: number): number {
-  let seg = 0;
-  for (let k = 0; k < table.segmentCount - 1; k++) if (psi > table.segmentHi[k]) seg++;
-  return seg;
-}
-
 /**
  * Class of the look-angle interval [lo, hi]: sky if every segment it meets ends on the sky (fate 0), surface
  * if none does, mixed otherwise.
  */
 function intervalClass(table: PackedRayTable, lo: number, hi: number): number {
-  const first = segmentOf(table, lo);
-  const last = segmentOf(table, hi);
+  const first = packedSegmentOf(table, lo);
+  const last = packedSegmentOf(table, hi);
   let sky = false;
   let surface = false;
   for (let k = first; k <= last; k++) {
-    if (table.segmentA[4 * k + 3] === 0) sky = true;
+    if (table.segmentA[4 * k + 3] === FATE_SKY) sky = true;
     else surface = true;
   }
   return sky && surface ? TILE_MIXED : sky ? TILE_SKY : TILE_SURFACE;
@@ -112,8 +106,13 @@ export function classifyFateTiles(frame: FateTileFrame, projector: Projector, ti
   // once and shared by neighbouring tiles), with the pixel's angular size there, or -1 outside the image
   const gridX = 2 * tilesX + 1;
   const gridY = 2 * tilesY + 1;
-  const xs = Float64Array.from({ length: gridX }, (_, i) => (i % 2 === 0 ? Math.min(width, (i / 2) * tilePx) : (Math.floor(i / 2) * tilePx + Math.min(width, (Math.floor(i / 2) + 1) * tilePx)) / 2));
-  const ys = Float64Array.from({ length: gridY }, (_, j) => (j % 2 === 0 ? Math.min(height, (j / 2) * tilePx) : (Math.floor(j / 2) * tilePx + Math.min(height, (Math.floor(j / 2) + 1) * tilePx)) / 2));
+  // even entries: tile edges (the last one clipped to the frame); odd entries: the midpoints between them
+  const halfGrid = (count: number, size: number) => {
+    const edge = (k: number) => Math.min(size, k * tilePx);
+    return Float64Array.from({ length: count }, (_, i) => (i % 2 === 0 ? edge(i / 2) : (edge((i - 1) / 2) + edge((i + 1) / 2)) / 2));
+  };
+  const xs = halfGrid(gridX, width);
+  const ys = halfGrid(gridY, height);
   const dirs = new Float64Array(3 * gridX * gridY);
   const pixelRads = new Float64Array(gridX * gridY);
   for (let j = 0; j < gridY; j++) {
@@ -131,6 +130,8 @@ export function classifyFateTiles(frame: FateTileFrame, projector: Projector, ti
       dirs[3 * g + 2] = reference[2];
     }
   }
+  const cx = width / 2;
+  const cy = height / 2;
   for (let ty = 0; ty < tilesY; ty++) {
     for (let tx = 0; tx < tilesX; tx++) {
       const x0 = xs[2 * tx];
@@ -139,9 +140,7 @@ export function classifyFateTiles(frame: FateTileFrame, projector: Projector, ti
       const y1 = ys[2 * ty + 2];
       const index = ty * tilesX + tx;
       if (dome) {
-        // distance from the frame centre to the tile's nearest and farthest points
-        const cx = width / 2;
-        const cy = height / 2;
+        // distance from the frame centre (cx, cy) to the tile's nearest and farthest points
         const nearX = Math.max(x0 - cx, 0, cx - x1);
         const nearY = Math.max(y0 - cy, 0, cy - y1);
         const farX = Math.max(Math.abs(x0 - cx), Math.abs(x1 - cx));

@@ -124,6 +124,18 @@ export interface PackedLookup {
 const f32 = Math.fround;
 
 /**
+ * The segment of a packed table holding look angle psi, by the shader's rule: the number of upper bounds below
+ * psi (the bounds rise; the last segment's and unused slots' are SEGMENT_BOUND_NONE).
+ * @param table packed table
+ * @param psi look angle, radians
+ */
+export function packedSegmentOf(table: PackedRayTable, psi: number): number {
+  let seg = 0;
+  for (let k = 0; k < MAX_RAY_TABLE_SEGMENTS; k++) if (psi > table.segmentHi[k]) seg++;
+  return seg;
+}
+
+/**
  * The shader's lookupRayTable in TypeScript with float32 rounding at the same
  * places, for tests of the GPU path without a GPU (mirrors lib/relativity
  * RayTable.lookup).
@@ -138,9 +150,7 @@ export function lookupPackedRayTable(table: PackedRayTable, psi: number, out: Pa
   const p = f32(psi);
   const A = table.segmentA;
   const B = table.segmentB;
-  // the shader counts the bounds below psi (they rise, so this is the first segment whose bound is not below)
-  let seg = 0;
-  for (let k = 0; k < MAX_RAY_TABLE_SEGMENTS; k++) if (p > table.segmentHi[k]) seg++;
+  const seg = packedSegmentOf(table, p);
   const map = A[4 * seg];
   const anchor = A[4 * seg + 2];
   const t0 = B[4 * seg];
