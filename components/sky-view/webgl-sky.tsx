@@ -1,7 +1,8 @@
 'use client';
 /**
- * The WebGL path: a @react-three/fiber canvas of exactly the request's size whose
- * render pass (GpuSkyRenderer) draws shaders/sky.lensed.frag. Frames are
+ * The WebGL path: a @react-three/fiber canvas that draws at the request's size
+ * (shown scaled to the display width) and whose render pass (GpuSkyRenderer)
+ * draws shaders/sky.lensed.frag. Frames are
  * drawn on demand, when the request, mode or sky data change.
  */
 import { useEffect, useMemo, useState } from 'react';

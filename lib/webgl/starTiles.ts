@@ -79,7 +79,7 @@ export interface StarTileIndex {
   entries: FloatImage;
   /** number of entries (a star appears in every tile it is near) */
   entryCount: number;
-  /** longest list (bounds the shader's loop) */
+  /** longest list (sets countBits) */
   maxListLength: number;
 }
 

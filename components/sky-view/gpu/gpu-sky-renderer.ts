@@ -132,7 +132,6 @@ export class GpuSkyRenderer {
       uSourceSizeRad: { value: 5 * ARCSEC_RAD },
       uStarTiles: { value: this.uintPlaceholder },
       uStarTileEntries: { value: this.placeholder },
-      uMaxTileList: { value: 0 },
       uStarTileCountBits: { value: 1 },
       uStarTileLevels: { value: new Float32Array(4 * STAR_TILE_LEVELS.length) },
       uDiffuse: { value: this.placeholder },
@@ -194,7 +193,6 @@ export class GpuSkyRenderer {
     u.uColourIndexPerLog.value = (data.colour.image.width - 1) / data.colour.logSpan;
     u.uStarTiles.value = this.sky.stars?.tiles ?? this.uintPlaceholder;
     u.uStarTileEntries.value = this.sky.stars?.tileEntries ?? this.placeholder;
-    u.uMaxTileList.value = this.sky.stars?.maxTileList ?? 0;
     u.uStarTileCountBits.value = data.stars?.tiles.countBits ?? 1;
     const levels = u.uStarTileLevels.value as Float32Array;
     STAR_TILE_LEVELS.forEach((level, k) => levels.set([level.tilesPerEdge, level.marginChord, data.stars?.tiles.levelOffset[k] ?? 0, 0], 4 * k));

@@ -93,8 +93,6 @@ export interface StarGpuTextures {
   tiles: THREE.DataTexture;
   /** per entry: unit vector times flux, ln T */
   tileEntries: THREE.DataTexture;
-  /** longest list */
-  maxTileList: number;
 }
 
 /** Upload star textures. */
@@ -102,6 +100,5 @@ export function starTextures(stars: StarTextures): StarGpuTextures {
   return {
     tiles: uintTexture(stars.tiles.tiles),
     tileEntries: dataTexture(stars.tiles.entries),
-    maxTileList: stars.tiles.maxListLength,
   };
 }
