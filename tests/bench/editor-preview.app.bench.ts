@@ -163,39 +163,35 @@ async function main(): Promise<void> {
   // Two compositor set-ups: headless Chromium's default composites the whole window through SwiftShader on
   // every frame; desktop Chromium on a machine without a usable GPU composites in software instead, redrawing
   // only what changed, while WebGL still runs in SwiftShader.
-  const compositors = [
-    { label: 'compositing in SwiftShader (headless default)', args: ARGS, fullFrames: true },
-    { label: 'compositing in SwiftShader, light frames when slow (the editor default)', args: ARGS, fullFrames: false },
-    { label: 'software compositing (--disable-gpu-compositing, as desktop Chromium without a GPU)', args: [...ARGS, '--disable-gpu-compositing'], fullFrames: true },
-    { label: 'software compositing, light frames when slow (the editor default)', args: [...ARGS, '--disable-gpu-compositing'], fullFrames: false },
-  ];
-  for (const compositor of compositors) {
-    const gpu = await chromium.launch({ executablePath: '/usr/bin/chromium', args: compositor.args });
+  const headless = { label: 'compositing in SwiftShader (headless default)', args: ARGS };
+  const software = { label: 'software compositing (--disable-gpu-compositing, as desktop Chromium without a GPU)', args: [...ARGS, '--disable-gpu-compositing'] };
+  const withBrowser = async <T>(args: string[], use: (browser: Browser) => Promise<T>): Promise<T> => {
+    const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args });
     try {
-      const results = await measure(gpu, scenes, 'webgl', compositor.fullFrames);
+      return await use(browser);
+    } finally {
+      await browser.close();
+    }
+  };
+  for (const compositor of [headless, software]) {
+    for (const fullFrames of [true, false]) {
+      const results = await withBrowser(compositor.args, (browser) => measure(browser, scenes, 'webgl', fullFrames));
+      const frames = fullFrames ? 'full frames' : 'light frames when slow (the editor default)';
       results.forEach((r, i) =>
         console.log(
-          `preview, ${r.path} path, ${compositor.label}, "${scenes[i]}" ${r.size}: ${r.fps.toFixed(1)} frames/s over ${r.seconds.toFixed(1)} s` +
+          `preview, ${r.path} path, ${compositor.label}, ${frames}, "${scenes[i]}" ${r.size}: ${r.fps.toFixed(1)} frames/s over ${r.seconds.toFixed(1)} s` +
             ` (target >= 20 at 640x360); half-size light frames on screen ${(100 * r.lightShare).toFixed(0)}% of the play`,
         ),
       );
-    } finally {
-      await gpu.close();
     }
   }
-  // the CPU fallback under both compositor set-ups: headless compositing in SwiftShader bounds it too
-  for (const compositor of [compositors[0], compositors[2]]) {
-    const cpu = await chromium.launch({ executablePath: '/usr/bin/chromium', args: [...compositor.args, '--disable-webgl', '--disable-3d-apis'] });
-    try {
-      const [r] = await measure(cpu, scenes.slice(0, 1), 'cpu');
-      const label = compositor.args.includes('--disable-gpu-compositing') ? 'software compositing' : 'compositing in SwiftShader (headless default)';
-      console.log(
-        `preview, ${r.path} fallback (WebGL disabled), ${label}, "${scenes[0]}" full size ${r.size}, half-size frames while playing: ` +
-          `${r.fps.toFixed(1)} frames/s over ${r.seconds.toFixed(1)} s (target >= 20 at 640x360)`,
-      );
-    } finally {
-      await cpu.close();
-    }
+  // the CPU fallback under both set-ups: headless compositing in SwiftShader bounds it too
+  for (const compositor of [headless, software]) {
+    const [r] = await withBrowser([...compositor.args, '--disable-webgl', '--disable-3d-apis'], (browser) => measure(browser, scenes.slice(0, 1), 'cpu'));
+    console.log(
+      `preview, ${r.path} fallback (WebGL disabled), ${compositor.label}, "${scenes[0]}" full size ${r.size}, half-size frames while playing: ` +
+        `${r.fps.toFixed(1)} frames/s over ${r.seconds.toFixed(1)} s (target >= 20 at 640x360)`,
+    );
   }
 }
 
