@@ -89,4 +89,32 @@ describe('tileTriangles', () => {
     expect(Math.min(out[1], out[4], out[7])).toBeCloseTo(-1, 6);
     expect(Math.max(out[1], out[4], out[7])).toBeCloseTo(1 - 32 / 24, 6);
   });
+
+  it('should merge tiles of a class into rectangles that cover each of its pixels exactly once', () => {
+    // 5 x 3 tiles of 4 px (20 x 12 px): a 3 x 2 block of sky with one surface tile in it, and sky elsewhere
+    const S = TILE_SKY;
+    const F = TILE_SURFACE;
+    const tiles = { tilesX: 5, tilesY: 3, classes: Uint8Array.from([S, S, S, F, S, S, F, S, F, S, S, S, S, S, S]) };
+    const out = new Float32Array(18 * 15);
+    const vertices = tileTriangles(tiles, TILE_SKY, 20, 12, out, 4);
+    // fewer triangles than two per tile (11 sky tiles)
+    expect(vertices).toBeLessThan(6 * 11);
+    // every pixel's sample point lies in exactly one triangle if its tile is sky, in none otherwise (edge
+    // function test; the points sit off the pixel centres so that none lies on a rectangle's diagonal)
+    const inside = (k: number, x: number, y: number) => {
+      const p = [0, 1, 2].map((v) => [out[3 * (k + v)], out[3 * (k + v) + 1]]);
+      const side = (a: number[], b: number[]) => (b[0] - a[0]) * (y - a[1]) - (b[1] - a[1]) * (x - a[0]);
+      const s = [side(p[0], p[1]), side(p[1], p[2]), side(p[2], p[0])];
+      return s.every((v) => v > 0) || s.every((v) => v < 0);
+    };
+    for (let py = 0; py < 12; py++) {
+      for (let px = 0; px < 20; px++) {
+        const x = ((px + 0.37) / 20) * 2 - 1;
+        const y = 1 - ((py + 0.61) / 12) * 2;
+        let hits = 0;
+        for (let k = 0; k < vertices; k += 3) if (inside(k, x, y)) hits++;
+        expect(hits).toBe(tiles.classes[Math.floor(py / 4) * 5 + Math.floor(px / 4)] === TILE_SKY ? 1 : 0);
+      }
+    }
+  });
 });
