@@ -35,7 +35,7 @@ export const DEMO_SCENES: ReadonlyArray<{ name: string; slug: string; spec: Scen
       look: { keyframes: [keyframe(0, 90), { tau: 60, look: [0, 1, 0], up: [0, 0, 1], fovDeg: 90, rollDeg: 0 }] },
       projection: dome,
       pacing: { frameRate: 30, points: [{ properTime: 0, screenTime: 0 }, { properTime: 60, screenTime: 30 }] },
-      notes: 'Rockets hold us at 1.6 r_s; the shadow fills more than half the sky and the stars crowd into a bright band.',
+      notes: 'Rockets hold us at 1.6 r_s; the shadow fills nearly half the sky and the stars crowd into a bright band around it.',
     },
   },
   {

@@ -237,6 +237,41 @@ test.describe('scene editor', () => {
     await page.getByTestId('play').click();
   });
 
+  test('should match lib/render with the horizon grid switched off, the shadow drawn black', async ({ page }) => {
+    await signIn(page, 'producer');
+    await openDemoShow(page);
+    // Hovering at 3.2 M, the shadow's edge lies 84 degrees from the hole (sin psi = 3 sqrt(3) M / r sqrt(1 - 2M / r),
+    // Synge 1966). At the shot's end the dome looks 90 degrees away from the hole, so about half of its circle
+    // is shadow and half lensed sky.
+    await page.getByRole('link', { name: 'Hover near the photon sphere', exact: true }).click();
+    await expect(page.getByTestId('scene-title')).toHaveText('Hover near the photon sphere', { timeout: 180_000 });
+    const editor = new SceneEditorPage(page);
+    await editor.waitForFullFrame();
+    await page.getByTestId('scrubber').focus();
+    await page.keyboard.press('End');
+    await editor.waitForFullFrame((r) => Math.abs(((r.camera as { look: number[] }).look[1] ?? 0)) > 0.9);
+    await page.getByTestId('tab-sky').click();
+    const grid = page.getByLabel('Horizon grid (thin teal lines)');
+    await grid.uncheck();
+    const frame = await editor.waitForFullFrame((r) => !(r.effects as { horizonGrid: { enabled: boolean } }).horizonGrid.enabled);
+    expect(frame.path).toBe('webgl');
+    const shown = await editor.framePixels();
+    const request = parseFrameRequest(frame.request);
+    const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
+    // black pixels of lib/render's frame: the shadow and the corners outside the dome's circle (21%), not the sky
+    let black = 0;
+    for (let j = 0; j < reference.length; j += 3) if (reference[j] + reference[j + 1] + reference[j + 2] === 0) black++;
+    const blackShare = black / (request.width * request.height);
+    expect(blackShare).toBeGreaterThan(0.35);
+    expect(blackShare).toBeLessThan(0.8);
+    const diff = diffStats(shown.rgba, reference, request.width * request.height);
+    console.log(`horizon grid off: ${(100 * blackShare).toFixed(0)}% of the frame black; mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
+    expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
+    expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
+    // leave the shared demo scene's draft as it was
+    await grid.check();
+  });
+
   test('should scale the preview down to a column narrower than the frame, keeping its full-size drawing', async ({ page }) => {
     const { first } = await openDropSceneAsProducer(page);
     await page.setViewportSize({ width: 560, height: 800 });
