@@ -70,6 +70,25 @@ function diffStats(rgba: Buffer, rgb: Uint8Array, pixels: number): { mean: numbe
 const AGREEMENT_MEAN_LEVELS = 2;
 const AGREEMENT_P99_LEVELS = 10;
 
+/**
+ * Checks the frame the preview shows against lib/render's render of the same request, here in Node, within the
+ * agreement targets, and logs the figures under `label`.
+ * @returns lib/render's frame (RGB), for further checks of the picture
+ */
+async function expectAgreesWithLibRender(editor: SceneEditorPage, frame: PreviewFrame, label: string): Promise<Uint8Array> {
+  const shown = await editor.framePixels();
+  const request = parseFrameRequest(frame.request);
+  expect(shown.width).toBe(request.width);
+  expect(shown.height).toBe(request.height);
+  expect(shown.rgba.length).toBe(request.width * request.height * 4);
+  const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
+  const diff = diffStats(shown.rgba, reference, request.width * request.height);
+  console.log(`${label}: ${request.width}x${request.height} on the ${frame.path} path; mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
+  expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
+  expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
+  return reference;
+}
+
 const radiusOf = (request: Record<string, unknown>) => (request.camera as { state: { radiusM: number } }).state.radiusM;
 
 test.describe('scene editor', () => {
@@ -187,18 +206,7 @@ test.describe('scene editor', () => {
       await page.getByRole('link', { name: demo.name, exact: true }).click();
       await expect(page.getByTestId('scene-title')).toHaveText(demo.name, { timeout: 180_000 });
       const editor = new SceneEditorPage(page);
-      const frame = await editor.waitForFullFrame();
-      const shown = await editor.framePixels();
-      // Same request rendered here with lib/render.
-      const request = parseFrameRequest(frame.request);
-      expect(shown.width).toBe(request.width);
-      expect(shown.height).toBe(request.height);
-      expect(shown.rgba.length).toBe(request.width * request.height * 4);
-      const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
-      const diff = diffStats(shown.rgba, reference, request.width * request.height);
-      console.log(`${demo.slug}: ${request.width}x${request.height} on the ${frame.path} path; mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
-      expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
-      expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
+      await expectAgreesWithLibRender(editor, await editor.waitForFullFrame(), demo.slug);
     }
     expect(errors).toEqual([]);
   });
@@ -255,19 +263,14 @@ test.describe('scene editor', () => {
     await grid.uncheck();
     const frame = await editor.waitForFullFrame((r) => !(r.effects as { horizonGrid: { enabled: boolean } }).horizonGrid.enabled);
     expect(frame.path).toBe('webgl');
-    const shown = await editor.framePixels();
-    const request = parseFrameRequest(frame.request);
-    const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
+    const reference = await expectAgreesWithLibRender(editor, frame, 'horizon grid off');
     // black pixels of lib/render's frame: the shadow and the corners outside the dome's circle (21%), not the sky
     let black = 0;
     for (let j = 0; j < reference.length; j += 3) if (reference[j] + reference[j + 1] + reference[j + 2] === 0) black++;
-    const blackShare = black / (request.width * request.height);
+    const blackShare = black / (reference.length / 3);
+    console.log(`horizon grid off: ${(100 * blackShare).toFixed(0)}% of the frame black`);
     expect(blackShare).toBeGreaterThan(0.35);
     expect(blackShare).toBeLessThan(0.8);
-    const diff = diffStats(shown.rgba, reference, request.width * request.height);
-    console.log(`horizon grid off: ${(100 * blackShare).toFixed(0)}% of the frame black; mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
-    expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
-    expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
     // leave the shared demo scene's draft as it was
     await grid.check();
   });
@@ -327,13 +330,7 @@ test.describe('scene editor', () => {
     // At rest it refines to the full-detail frame, which is lib/render's own picture.
     const settled = await editor.waitForFullFrame((request) => request.width === full.width && radiusOf(request) !== radiusOf(rested.request));
     expect(settled.path).toBe('cpu');
-    const shown = await editor.framePixels();
-    const request = parseFrameRequest(settled.request);
-    const reference = renderBandEncoded(prepareFrame(request, await loadSkyAssets(request)), { y0: 0, y1: request.height }, 8) as Uint8Array;
-    const diff = diffStats(shown.rgba, reference, request.width * request.height);
-    console.log(`CPU fallback, ${request.width}x${request.height}: mean |diff| ${diff.mean.toFixed(3)}/255, 99th percentile ${diff.p99}/255`);
-    expect(diff.mean).toBeLessThan(AGREEMENT_MEAN_LEVELS);
-    expect(diff.p99).toBeLessThan(AGREEMENT_P99_LEVELS);
+    await expectAgreesWithLibRender(editor, settled, 'CPU fallback');
     expect(errors).toEqual([]);
   });
 });
