@@ -24,7 +24,7 @@
 //   uSegA[i]          vec4   (map 0 uniform / 1 log from left / 2 log to right, psi_hi rad, anchor rad, fate)
 //   uSegB[i]          vec4   (t0, dt, node offset, node count) of the sampling variable t (psi or ln|psi - anchor|)
 //   uRayTable         sampler2D RGBA float: (phi rad, dphi/dt) of node i and of node i + 1 in texel i,
-//                     RAY_TABLE_WIDTH texels per row (lib/webgl/rayTableTexture.ts packRayTable)
+//                     ARRAY_TEXTURE_WIDTH texels per row (lib/webgl/rayTableTexture.ts packRayTable)
 //
 // Mirrors: lib/render/projections.ts createProjector (pixelToView), lib/render/orientation.ts,
 // lib/relativity/boost.ts boostLookDirection, lib/relativity/rayTable.ts RayTable.lookup,
@@ -32,8 +32,8 @@
 // lib/webgl/sourceDirections.ts.
 
 #define MAX_SEGMENTS 12
-#define RAY_TABLE_WIDTH 1024
-#define RAY_TABLE_WIDTH_LOG2 10
+// rows of the textures holding 1-D arrays (lib/webgl/arrayTexture.ts ARRAY_TEXTURE_WIDTH = 2^10)
+#define ARRAY_TEXTURE_WIDTH_LOG2 10
 #define PI 3.141592653589793
 
 // Software WebGL (SwiftShader) runs every branch of a 2 x 2 pixel quad under a lane mask and every loop for the
@@ -119,10 +119,14 @@ float boostLook(inout vec3 n, vec3 v) {
   return 1.0 / energy;
 }
 
-// nodes i and i + 1 of the table, RAY_TABLE_WIDTH per row (shift and mask: software GPUs divide integers lane
-// by lane; one fetch, as each texel carries the next node too)
+// element i of a 1-D array laid out in texture rows (shift and mask: software GPUs divide integers lane by lane)
+ivec2 arrayTexel(int i) {
+  return ivec2(i & ((1 << ARRAY_TEXTURE_WIDTH_LOG2) - 1), i >> ARRAY_TEXTURE_WIDTH_LOG2);
+}
+
+// nodes i and i + 1 of the table (one fetch, as each texel carries the next node too)
 vec4 rayNodes(int i) {
-  return texelFetch(uRayTable, ivec2(i & (RAY_TABLE_WIDTH - 1), i >> RAY_TABLE_WIDTH_LOG2), 0);
+  return texelFetch(uRayTable, arrayTexel(i), 0);
 }
 
 // RayTable.lookup: fate, phi and dphi/dpsi at look angle psi (cubic Hermite in the segment's variable t).

@@ -26,10 +26,10 @@
 //   uColourIndexPerLog  float   table entries per unit of ln T
 //   uStarGain float;  uPsfSigmaPx float (pixels);  uSourceSizeRad float (radians)
 //   uStarTiles          usampler2D R32UI: first entry << uStarTileCountBits | entry count of each cube-map tile,
-//                       the levels one after the other, 1024 wide (lib/webgl/starTiles.ts StarTileIndex)
+//                       the levels one after the other, in rows as arrayTexel (lib/webgl/starTiles.ts StarTileIndex)
 //   uStarTileCountBits  int     low bits of a packed tile holding its count
 //   uStarTileEntries    sampler2D RGBA float: unit vector times flux (mag-0 units), and ln(T / 1 K), of the star
-//                       of each list entry, 1024 wide
+//                       of each list entry, in rows as arrayTexel
 //   uStarTileLevels[4]  vec4    per level, narrowest margin first: (tiles per face edge, largest kernel reach
 //                       served (3 sigma, chord of unit vectors), first tile in uStarTiles, 0)
 //   uDiffuse            sampler2D RGBA float mip-mapped equirect (Milky Way per sr, star flux per sr,
@@ -109,11 +109,6 @@ out vec4 fragColor;
 vec3 blackbodyLog(float logT) {
   float x = clamp((logT - uColourLogMinK) * uColourIndexPerLog, 0.0, uColourEntries - 1.0);
   return texture(uColourTable, vec2((x + 0.5) / uColourEntries, 0.5)).rgb;
-}
-
-// entry i of a 1024-wide array texture (shift and mask: software GPUs divide integers lane by lane)
-ivec2 arrayTexel(int i) {
-  return ivec2(i & 1023, i >> 10);
 }
 
 #if STARS

@@ -14,6 +14,7 @@
  * between engine and shader cannot happen.
  */
 import type { RayTableArrays } from '../relativity';
+import { ARRAY_TEXTURE_WIDTH, arrayTextureRows } from './arrayTexture';
 
 /** Header length of RayTableArrays.layout (lib/relativity/rayTable.ts). */
 export const RAY_TABLE_HEADER_LENGTH = 6;
@@ -21,8 +22,6 @@ export const RAY_TABLE_HEADER_LENGTH = 6;
 export const RAY_TABLE_SEGMENT_STRIDE = 9;
 /** Largest segment count the shader's uniform arrays hold (the engine makes at most 8). */
 export const MAX_RAY_TABLE_SEGMENTS = 12;
-/** Texture width of the node texture, texels. */
-export const RAY_TABLE_TEXTURE_WIDTH = 1024;
 
 /** Upper bound written for segments without one (the last in use, and unused slots), radians. */
 export const SEGMENT_BOUND_NONE = 1e30;
@@ -47,7 +46,7 @@ export interface PackedRayTable {
   segmentA: Float32Array;
   /** per segment (t0, dt, node offset, node count), MAX_RAY_TABLE_SEGMENTS * 4 floats */
   segmentB: Float32Array;
-  /** node texture, 4 floats per texel (phi rad, dphi/dt of node i, then of node i + 1), RAY_TABLE_TEXTURE_WIDTH wide */
+  /** node texture, 4 floats per texel (phi rad, dphi/dt of node i, then of node i + 1), ARRAY_TEXTURE_WIDTH wide */
   nodes: Float32Array;
   textureWidth: number;
   textureHeight: number;
@@ -69,9 +68,9 @@ export function packRayTable(arrays: RayTableArrays, reuse?: PackedRayTable): Pa
   }
   const total = arrays.phi.length;
   if (arrays.slope.length !== total) throw new RangeError('arrays.slope: must have as many nodes as arrays.phi');
-  const height = Math.max(1, Math.ceil(total / RAY_TABLE_TEXTURE_WIDTH));
+  const height = arrayTextureRows(total);
   const out: PackedRayTable =
-    reuse && reuse.nodes.length >= height * RAY_TABLE_TEXTURE_WIDTH * 4 && reuse.textureHeight === height
+    reuse && reuse.nodes.length >= height * ARRAY_TEXTURE_WIDTH * 4 && reuse.textureHeight === height
       ? reuse
       : {
           eps: 0,
@@ -80,8 +79,8 @@ export function packRayTable(arrays: RayTableArrays, reuse?: PackedRayTable): Pa
           segmentHi: new Float32Array(MAX_RAY_TABLE_SEGMENTS),
           segmentA: new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4),
           segmentB: new Float32Array(MAX_RAY_TABLE_SEGMENTS * 4),
-          nodes: new Float32Array(height * RAY_TABLE_TEXTURE_WIDTH * 4),
-          textureWidth: RAY_TABLE_TEXTURE_WIDTH,
+          nodes: new Float32Array(height * ARRAY_TEXTURE_WIDTH * 4),
+          textureWidth: ARRAY_TEXTURE_WIDTH,
           textureHeight: height,
         };
   out.eps = L[1];

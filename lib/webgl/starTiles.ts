@@ -21,6 +21,7 @@
 import type { StarField } from '../render/starField';
 import { forEachStarNear, STAR_CELL_SIZE } from '../render/starField';
 import type { FloatImage } from './skyTextures';
+import { ARRAY_TEXTURE_WIDTH, arrayTextureRows } from './arrayTexture';
 
 /** One level of tiles. */
 export interface StarTileLevel {
@@ -51,8 +52,6 @@ export const STAR_TILE_LEVELS: readonly StarTileLevel[] = [
  * (~1e-7) many times over.
  */
 const SAFETY_CHORD = 1e-5;
-/** Width of the tile and entry textures, texels (1-D arrays laid out in rows, as the shader's arrayTexel). */
-const ARRAY_TEXTURE_WIDTH = 1024;
 
 /** A 1-D array of unsigned integers laid out in rows of a texture (one channel). */
 export interface UintImage {
@@ -244,18 +243,18 @@ export function buildStarTileIndex(field: StarField): StarTileIndex {
   const first = new Uint32Array(tileCount);
   const count = new Uint32Array(tileCount);
   STAR_TILE_LEVELS.forEach((level, k) => {
-    const n = level.tilesPerEdge;
-    addLevel(field, level.tilesPerEdge, level.marginChord, list, first.subarray(levelOffset[k], levelOffset[k] + 6 * n * n), count.subarray(levelOffset[k], levelOffset[k] + 6 * n * n));
+    const end = levelOffset[k] + 6 * level.tilesPerEdge * level.tilesPerEdge;
+    addLevel(field, level.tilesPerEdge, level.marginChord, list, first.subarray(levelOffset[k], end), count.subarray(levelOffset[k], end));
   });
   const used = list.used;
   let maxListLength = 0;
   for (let t = 0; t < tileCount; t++) maxListLength = Math.max(maxListLength, count[t]);
   const countBits = Math.max(1, Math.ceil(Math.log2(maxListLength + 1)));
   if (used * 2 ** countBits > 2 ** 32) throw new RangeError(`${used} star tile entries with lists of up to ${maxListLength} do not fit 32-bit packed tiles`);
-  const tiles: UintImage = { width: ARRAY_TEXTURE_WIDTH, height: Math.ceil(tileCount / ARRAY_TEXTURE_WIDTH), data: new Uint32Array(0) };
-  tiles.data = new Uint32Array(tiles.width * tiles.height);
+  const tileRows = arrayTextureRows(tileCount);
+  const tiles: UintImage = { width: ARRAY_TEXTURE_WIDTH, height: tileRows, data: new Uint32Array(ARRAY_TEXTURE_WIDTH * tileRows) };
   for (let t = 0; t < tileCount; t++) tiles.data[t] = first[t] * 2 ** countBits + count[t];
-  const entryRows = Math.max(1, Math.ceil(used / ARRAY_TEXTURE_WIDTH));
+  const entryRows = arrayTextureRows(used);
   const entries: FloatImage = { width: ARRAY_TEXTURE_WIDTH, height: entryRows, channels: 4, data: new Float32Array(ARRAY_TEXTURE_WIDTH * entryRows * 4) };
   for (let k = 0; k < used; k++) {
     const s = list.items[k];

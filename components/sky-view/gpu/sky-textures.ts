@@ -4,7 +4,8 @@
  */
 import * as THREE from 'three';
 import type { FloatImage, DiffuseTextures, ColourTexture, StarTextures } from '@/lib/webgl/skyTextures';
-import { RAY_TABLE_TEXTURE_WIDTH, type PackedRayTable } from '@/lib/webgl/rayTableTexture';
+import type { PackedRayTable } from '@/lib/webgl/rayTableTexture';
+import { ARRAY_TEXTURE_WIDTH } from '@/lib/webgl/arrayTexture';
 import type { UintImage } from '@/lib/webgl/starTiles';
 
 /** A nearest-filtered float texture holding a 1-D array laid out in rows. */
@@ -65,7 +66,7 @@ export class RayTableTexture {
   }
 
   private make(rows: number): THREE.DataTexture {
-    return dataTexture({ width: RAY_TABLE_TEXTURE_WIDTH, height: rows, channels: 4, data: new Float32Array(RAY_TABLE_TEXTURE_WIDTH * rows * 4) });
+    return dataTexture({ width: ARRAY_TEXTURE_WIDTH, height: rows, channels: 4, data: new Float32Array(ARRAY_TEXTURE_WIDTH * rows * 4) });
   }
 
   /** Copy a packed table's nodes in; returns true when the texture object changed (uniform must be reset). */
@@ -77,7 +78,7 @@ export class RayTableTexture {
       this.texture = this.make(this.rows);
       changed = true;
     }
-    (this.texture.image.data as Float32Array).set(table.nodes.subarray(0, table.textureHeight * RAY_TABLE_TEXTURE_WIDTH * 4));
+    (this.texture.image.data as Float32Array).set(table.nodes.subarray(0, table.textureHeight * ARRAY_TEXTURE_WIDTH * 4));
     this.texture.needsUpdate = true;
     return changed;
   }
