@@ -207,6 +207,11 @@ export function tileTriangles(tiles: FateTiles, tileClass: number, width: number
   const { tilesX, tilesY, classes } = tiles;
   const taken = new Uint8Array(classes.length);
   const free = (tx: number, ty: number) => classes[ty * tilesX + tx] === tileClass && taken[ty * tilesX + tx] === 0;
+  // columns tx .. tx + runX - 1 of row ty all free
+  const runFree = (tx: number, runX: number, ty: number) => {
+    for (let k = 0; k < runX; k++) if (!free(tx + k, ty)) return false;
+    return true;
+  };
   let n = 0;
   for (let ty = 0; ty < tilesY; ty++) {
     for (let tx = 0; tx < tilesX; tx++) {
@@ -214,11 +219,7 @@ export function tileTriangles(tiles: FateTiles, tileClass: number, width: number
       let runX = 1;
       while (tx + runX < tilesX && free(tx + runX, ty)) runX++;
       let runY = 1;
-      const rowFree = (row: number) => {
-        for (let k = 0; k < runX; k++) if (!free(tx + k, row)) return false;
-        return true;
-      };
-      while (ty + runY < tilesY && rowFree(ty + runY)) runY++;
+      while (ty + runY < tilesY && runFree(tx, runX, ty + runY)) runY++;
       for (let j = 0; j < runY; j++) taken.fill(1, (ty + j) * tilesX + tx, (ty + j) * tilesX + tx + runX);
       const left = (2 * tx * tilePx) / width - 1;
       const right = (2 * Math.min(width, (tx + runX) * tilePx)) / width - 1;
