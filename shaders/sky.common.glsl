@@ -1,6 +1,6 @@
 // sky.common.glsl — shared per-pixel geometry of the sky shaders: pixel -> view direction -> camera
 // frame -> (boost) -> look angle psi -> ray table -> direction on the sky or on the horizon.
-// Included by sky.lensed.frag and sky.directions.frag (scripts/build-shaders.mjs inlines it).
+// Included by sky.lensed.frag, sky.directions.frag and sky.geometry.frag (scripts/build-shaders.mjs inlines it).
 //
 // Compile-time switches (#define; each combination is its own program, chosen per frame by
 // components/sky-view/gpu/gpu-sky-renderer.ts from lib/webgl/shaderVariant.ts, so no pixel pays for code

@@ -6,8 +6,9 @@
 // texture lookup and transcendental costs each pixel: the sources of a pixel are coloured by ONE blackbody
 // lookup at their luminance-weighted mean ln T (lib/render sums one coloured lookup per source; the two agree
 // exactly where one source dominates a pixel, as almost everywhere), and the sRGB curve is a three-square-root
-// fit. Against lib/render the frame differs by a mean of about 0.1/255 and a 99th percentile of 1/255
-// (tests/e2e/sky-view.spec.ts; the issue allows 2/255 and 10/255).
+// fit; and interior sky tiles interpolate their geometry (INTERPOLATED_GEOMETRY). Against lib/render the frame
+// differs by a mean of about 0.2/255 and a 99th percentile of 2/255 (tests/e2e/sky-view.spec.ts; the issue
+// allows 2/255 and 10/255).
 //
 // Compile-time switches (besides those of sky.common.glsl; lib/webgl/shaderVariant.ts):
 //   SAMPLES             samples per axis (1..4), box filter
@@ -16,6 +17,8 @@
 //                       frame (the celestial one in the "where the light comes from" mode)
 //   STARS               1: star catalogue on;  DIFFUSE 1: diffuse map bound;  MILKY_WAY 1: Milky Way on
 //   UNIFORM_SKY         1: uniform sky brightness on
+//   INTERPOLATED_GEOMETRY 1: every ray reaches the sky, and the direction and footprint are interpolated from
+//                       the grid of sky.geometry.frag (interior sky tiles of the picture mode); 0: traced here
 //
 // Uniforms (besides those of sky.common.glsl):
 //   uColourShift        bool    shift colours by g (physics.md section 6)
@@ -39,6 +42,8 @@
 //   uHorizonGrid, uFarSideGrid  vec4 (enabled 0/1, spacing rad, line width px, dashed 0/1)
 //   uHorizonColour, uFarSideColour, uCelestialColour  vec3 display-linear colours
 //   uCelestialGrid      vec4    like the grids
+//   uGeometry           sampler2D RGBA float, linear filter: sky.geometry.frag's grid (direction, footprint)
+//   uGeometryStep float (pixels between grid points);  uGeometrySize vec2 (grid points across and down)
 precision highp float;
 precision highp int;
 precision highp sampler2D;
@@ -73,6 +78,9 @@ precision highp usampler2D;
 #ifndef UNIFORM_SKY
 #define UNIFORM_SKY 0
 #endif
+#ifndef INTERPOLATED_GEOMETRY
+#define INTERPOLATED_GEOMETRY 0
+#endif
 
 #define STAR_CELL_SIZE 0.02
 
@@ -103,7 +111,48 @@ uniform vec3 uHorizonColour;
 uniform vec3 uFarSideColour;
 uniform vec3 uCelestialColour;
 
+#if INTERPOLATED_GEOMETRY
+uniform highp sampler2D uGeometry;
+uniform float uGeometryStep;
+uniform vec2 uGeometrySize;
+#endif
+
 out vec4 fragColor;
+
+#if INTERPOLATED_GEOMETRY
+// texture coordinate of frame point p in sky.geometry.frag's grid
+vec2 gridCoord(vec2 p) {
+  vec2 cell = (p - 0.5) / uGeometryStep;
+  return vec2(cell.x + 0.5, uGeometrySize.y - 0.5 - cell.y) / uGeometrySize;
+}
+
+// traceFramePoint for a ray known to reach the sky, its direction and footprint interpolated bilinearly between
+// the four grid points around p (uGeometryStep pixels apart; the error is second order in the step, a small part
+// of a footprint where interior tiles are drawn: tests/unit/webgl/fateTiles.test.ts); g is exact, from p's own
+// look direction
+Trace interpolatedTrace(vec2 p) {
+  Trace tr;
+  vec4 geo = textureLod(uGeometry, gridCoord(p), 0.0);
+  vec3 view;
+  pixelToView(p, view);
+  vec3 n = uViewToCamera * view;
+  float doppler = 1.0;
+#if LENSING && BOOST
+  doppler = boostLook(n, uBoostVelocity);
+#endif
+#if LENSING
+  tr.g = doppler / abs(uEps - n.x * uUr);
+#else
+  tr.g = 1.0;
+#endif
+  tr.dir = normalize(geo.xyz);
+  tr.fate = 0.0;
+  tr.footRad = geo.w;
+  tr.dA = vec3(0.0);
+  tr.dB = vec3(0.0);
+  return tr;
+}
+#endif
 
 // lib/render/colourTable.ts blackbodyColourLog: linear interpolation between table entries.
 vec3 blackbodyLog(float logT) {
@@ -164,7 +213,11 @@ void shadeSample(vec2 p, float samples, out vec3 radiance, out vec4 overlay, out
   radiance = vec3(0.0);
   overlay = vec4(0.0);
   celestial = 0.0;
+#if INTERPOLATED_GEOMETRY
+  Trace tr = interpolatedTrace(p);
+#else
   Trace tr = traceFramePoint(p);
+#endif
   bool sky = tr.fate > -0.5 && tr.fate < 0.5;
   // colours shift by g: ln(g) moves a blackbody's ln T (physics.md section 6)
   float logShift = uColourShift ? log(tr.g) : 0.0;

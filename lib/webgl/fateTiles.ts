@@ -34,6 +34,11 @@ export const TILE_NONE = 0;
 export const TILE_SKY = 1;
 export const TILE_SURFACE = 2;
 export const TILE_MIXED = 3;
+/** A sky tile whose eight neighbours are sky tiles too (interpolated geometry is safe there, see interiorSkyTiles). */
+export const TILE_SKY_INTERIOR = 4;
+
+/** Pixels between the traced grid points whose geometry interior sky tiles interpolate (shaders/sky.geometry.frag). */
+export const GEOMETRY_STEP_PX = 4;
 
 /**
  * Safety factor on a tile's angular radius: covers the curvature of its sampled edges between the sample
@@ -181,6 +186,28 @@ export function classifyFateTiles(frame: FateTileFrame, projector: Projector, ti
   return { tilesX, tilesY, classes };
 }
 
+/**
+ * The tiles with the sky tiles split: TILE_SKY_INTERIOR where all eight neighbours are sky tiles, TILE_SKY where
+ * one is not or the tile lies on the frame's border. A pixel of an interior tile can take its geometry from a
+ * grid of traced points a few pixels apart (sky.geometry.frag): every grid point it interpolates between lies
+ * in its tile or a neighbour, so on the sky, and the lens map is smooth there (the shadow's edge, where phi
+ * diverges, is at least a tile away).
+ * @param tiles classified tiles
+ * @returns a copy with the interior sky tiles marked
+ */
+export function interiorSkyTiles(tiles: FateTiles): FateTiles {
+  const { tilesX, tilesY, classes } = tiles;
+  const out = new Uint8Array(classes);
+  for (let ty = 1; ty < tilesY - 1; ty++) {
+    for (let tx = 1; tx < tilesX - 1; tx++) {
+      let interior = true;
+      for (let dy = -1; dy <= 1 && interior; dy++) for (let dx = -1; dx <= 1; dx++) if (classes[(ty + dy) * tilesX + tx + dx] !== TILE_SKY) interior = false;
+      if (interior) out[ty * tilesX + tx] = TILE_SKY_INTERIOR;
+    }
+  }
+  return { tilesX, tilesY, classes: out };
+}
+
 /** Write clip-space vertex n (z = 0); returns n + 1. */
 function vertex(out: Float32Array, n: number, x: number, y: number): number {
   out[3 * n] = x;
@@ -196,7 +223,7 @@ function vertex(out: Float32Array, n: number, x: number, y: number): number {
  * edge cuts is shaded by both triangles; the diagonal of a 16 px tile cuts 8 of its 64 quads (12.5% of the
  * work twice), that of a w x h quad rectangle about w + h of w h.
  * @param tiles classified tiles
- * @param tileClass TILE_SKY, TILE_SURFACE or TILE_MIXED
+ * @param tileClass TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE or TILE_MIXED
  * @param width frame width, px
  * @param height frame height, px
  * @param out receives the vertices; needs 18 floats per tile of the frame

@@ -94,13 +94,17 @@ export function fateTilesPay(frame: GpuFrame): boolean {
 }
 
 /**
- * Switches of the lensed program for tiles whose rays all reach the sky (no horizon or far-side grid code) and
- * for tiles whose rays all end on r = 2M (no sky sources, no celestial grid); the full set serves mixed tiles.
+ * Switches of the lensed program for tiles whose rays all reach the sky (no horizon or far-side grid code), for
+ * interior sky tiles (the same, with the geometry interpolated from sky.geometry.frag's grid; picture mode only,
+ * as the celestial grid needs each pixel's own derivatives) and for tiles whose rays all end on r = 2M (no sky
+ * sources, no celestial grid); the full set serves mixed tiles.
  * @param full lensedShaderDefines of the frame
  */
-export function tileShaderDefines(full: ShaderDefines): { sky: ShaderDefines; surface: ShaderDefines } {
+export function tileShaderDefines(full: ShaderDefines): { sky: ShaderDefines; interior: ShaderDefines; surface: ShaderDefines } {
+  const sky = { ...full, HORIZON_GRID: 0, FAR_SIDE_GRID: 0, DASHED_GRIDS: 0 };
   return {
-    sky: { ...full, HORIZON_GRID: 0, FAR_SIDE_GRID: 0, DASHED_GRIDS: 0 },
+    sky,
+    interior: { ...sky, INTERPOLATED_GEOMETRY: 1 },
     surface: { ...full, STARS: 0, DIFFUSE: 0, MILKY_WAY: 0, UNIFORM_SKY: 0, CELESTIAL_GRID: 0 },
   };
 }

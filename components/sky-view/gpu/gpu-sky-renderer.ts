@@ -15,9 +15,9 @@ import { prepareGpuFrame, type GpuFrame, type GridUniforms } from '@/lib/webgl/g
 import { MAX_RAY_TABLE_SEGMENTS } from '@/lib/webgl/rayTableTexture';
 import { CELESTIAL_GRID } from '@/lib/webgl/sourceDirections';
 import { STAR_TILE_LEVELS } from '@/lib/webgl/starTiles';
-import { SKY_DIRECTIONS_FRAG, SKY_FULLSCREEN_VERT, SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
+import { SKY_DIRECTIONS_FRAG, SKY_FULLSCREEN_VERT, SKY_GEOMETRY_FRAG, SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
 import { directionsShaderDefines, fateTilesPay, lensedShaderDefines, shaderVariantKey, tileShaderDefines, type ShaderDefines } from '@/lib/webgl/shaderVariant';
-import { classifyFateTiles, tileTriangles, TILE_MIXED, TILE_SKY, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { classifyFateTiles, GEOMETRY_STEP_PX, interiorSkyTiles, tileTriangles, TILE_MIXED, TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE } from '@/lib/webgl/fateTiles';
 import { createProjector } from '@/lib/render/projections';
 import { MILKY_WAY_TEMPERATURE_K } from '@/lib/render/milkyWay';
 import { hexToLinear } from '@/lib/render/shade';
@@ -88,9 +88,15 @@ export class GpuSkyRenderer {
   /** the programs of the last prepared frame */
   private lensed: THREE.RawShaderMaterial;
   private directions: THREE.RawShaderMaterial;
-  /** the frame's tiles by class (sky, surface, mixed), drawn instead of the full-frame quad when `tiled` */
-  private readonly tiles: Record<'sky' | 'surface' | 'mixed', TileMesh>;
+  /** the frame's tiles by class (sky, interior sky, surface, mixed), drawn instead of the full-frame quad when `tiled` */
+  private readonly tiles: Record<'sky' | 'interior' | 'surface' | 'mixed', TileMesh>;
   private tiled = false;
+  /** interior sky tiles take their geometry from the grid pass (picture mode, float targets) */
+  private interpolating = false;
+  /** the grid pass: traced points GEOMETRY_STEP_PX apart, into a float target read with bilinear filtering */
+  private readonly geometryScene = new THREE.Scene();
+  private readonly geometryMesh: THREE.Mesh;
+  private readonly geometryTarget: THREE.WebGLRenderTarget | null;
   /** inputs of the last tile sort */
   private tilesKey = '';
   private readonly uniforms: Record<string, THREE.IUniform>;
@@ -146,6 +152,9 @@ export class GpuSkyRenderer {
       uHorizonColour: { value: new THREE.Vector3() },
       uFarSideColour: { value: new THREE.Vector3() },
       uCelestialColour: { value: colourVec(hexToLinear(CELESTIAL_GRID.colour)) },
+      uGeometry: { value: this.placeholder },
+      uGeometryStep: { value: GEOMETRY_STEP_PX },
+      uGeometrySize: { value: new THREE.Vector2(1, 1) },
     };
     // placeholders until the first prepare() picks the variants of its frame
     this.lensed = this.program(SKY_LENSED_FRAG, {});
@@ -153,13 +162,21 @@ export class GpuSkyRenderer {
     this.mesh = new THREE.Mesh(new THREE.PlaneGeometry(2, 2), this.lensed);
     this.mesh.frustumCulled = false;
     this.scene.add(this.mesh);
-    this.tiles = { sky: new TileMesh(this.lensed), surface: new TileMesh(this.lensed), mixed: new TileMesh(this.lensed) };
+    this.tiles = { sky: new TileMesh(this.lensed), interior: new TileMesh(this.lensed), surface: new TileMesh(this.lensed), mixed: new TileMesh(this.lensed) };
     for (const tile of Object.values(this.tiles)) this.scene.add(tile.mesh);
+    this.geometryMesh = new THREE.Mesh(new THREE.PlaneGeometry(2, 2), this.directions);
+    this.geometryMesh.frustumCulled = false;
+    this.geometryScene.add(this.geometryMesh);
+    // rendering to float targets needs EXT_color_buffer_float; without it every pixel traces its own ray
+    this.geometryTarget = gl.extensions.has('EXT_color_buffer_float')
+      ? new THREE.WebGLRenderTarget(1, 1, { type: THREE.FloatType, format: THREE.RGBAFormat, depthBuffer: false, minFilter: THREE.LinearFilter, magFilter: THREE.LinearFilter })
+      : null;
   }
 
   /** The compiled program of a fragment shader with a set of switches (cached; three.js compiles on first use). */
   private program(fragmentShader: string, defines: ShaderDefines): THREE.RawShaderMaterial {
-    const key = `${fragmentShader === SKY_LENSED_FRAG ? 'lensed' : 'directions'}|${shaderVariantKey(defines)}`;
+    const name = fragmentShader === SKY_LENSED_FRAG ? 'lensed' : fragmentShader === SKY_GEOMETRY_FRAG ? 'geometry' : 'directions';
+    const key = `${name}|${shaderVariantKey(defines)}`;
     let material = this.programs.get(key);
     if (!material) {
       material = new THREE.RawShaderMaterial({
@@ -269,24 +286,36 @@ export class GpuSkyRenderer {
     });
     this.lensed = this.program(SKY_LENSED_FRAG, defines);
     this.directions = this.program(SKY_DIRECTIONS_FRAG, directionsShaderDefines(frame));
-    this.tiled = fateTilesPay(frame);
+    this.interpolating = mode === 'image' && !!this.geometryTarget && frame.lensing && !!frame.table;
+    this.tiled = fateTilesPay(frame) || this.interpolating;
     if (this.tiled) {
       const programs = tileShaderDefines(defines);
       this.tiles.sky.mesh.material = this.program(SKY_LENSED_FRAG, programs.sky);
+      this.tiles.interior.mesh.material = this.program(SKY_LENSED_FRAG, programs.interior);
       this.tiles.surface.mesh.material = this.program(SKY_LENSED_FRAG, programs.surface);
       this.tiles.mixed.mesh.material = this.lensed;
       this.fillTiles(frame, req);
+    }
+    if (this.interpolating && this.geometryTarget) {
+      const across = Math.floor((frame.width - 1) / GEOMETRY_STEP_PX) + 2;
+      const down = Math.floor((frame.height - 1) / GEOMETRY_STEP_PX) + 2;
+      if (this.geometryTarget.width !== across || this.geometryTarget.height !== down) this.geometryTarget.setSize(across, down);
+      (u.uGeometrySize.value as THREE.Vector2).set(across, down);
+      u.uGeometry.value = this.geometryTarget.texture;
+      this.geometryMesh.material = this.program(SKY_GEOMETRY_FRAG, directionsShaderDefines(frame));
     }
   }
 
   /** Sort the frame's screen tiles (again only when the view, the camera state or the frame size changed). */
   private fillTiles(frame: GpuFrame, req: FrameRequest): void {
-    const key = JSON.stringify([req.camera, req.projection, req.width, req.height]);
+    const key = JSON.stringify([req.camera, req.projection, req.width, req.height, this.interpolating]);
     if (key === this.tilesKey || !frame.table) return;
     this.tilesKey = key;
-    const tiles = classifyFateTiles({ ...frame, table: frame.table }, createProjector(req.projection, frame.width, frame.height));
+    const classified = classifyFateTiles({ ...frame, table: frame.table }, createProjector(req.projection, frame.width, frame.height));
+    const tiles = this.interpolating ? interiorSkyTiles(classified) : classified;
     const floats = 18 * tiles.classes.length;
     this.tiles.sky.fill((out) => tileTriangles(tiles, TILE_SKY, frame.width, frame.height, out), floats);
+    this.tiles.interior.fill((out) => tileTriangles(tiles, TILE_SKY_INTERIOR, frame.width, frame.height, out), floats);
     this.tiles.surface.fill((out) => tileTriangles(tiles, TILE_SURFACE, frame.width, frame.height, out), floats);
     this.tiles.mixed.fill((out) => tileTriangles(tiles, TILE_MIXED, frame.width, frame.height, out), floats);
   }
@@ -300,6 +329,10 @@ export class GpuSkyRenderer {
 
   /** Draw the picture to the canvas (or a render target). */
   draw(target: THREE.WebGLRenderTarget | null = null): void {
+    if (this.interpolating && this.geometryTarget) {
+      this.gl.setRenderTarget(this.geometryTarget);
+      this.gl.render(this.geometryScene, this.camera);
+    }
     // tiles not drawn (outside a dome master's circle) keep the clear colour: black, as the full program draws them
     this.show(this.tiled ? null : this.lensed);
     this.gl.setRenderTarget(target);
@@ -359,6 +392,8 @@ export class GpuSkyRenderer {
   dispose(): void {
     this.disposeSky();
     this.rayTable.dispose();
+    this.geometryTarget?.dispose();
+    this.geometryMesh.geometry.dispose();
     this.placeholder.dispose();
     this.uintPlaceholder.dispose();
     for (const material of this.programs.values()) material.dispose();

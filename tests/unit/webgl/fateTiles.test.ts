@@ -3,7 +3,8 @@ import { parseFrameRequest } from '@/lib/render/schema';
 import { prepareFrame } from '@/lib/render/frame';
 import { createProjector } from '@/lib/render/projections';
 import { prepareGpuFrame } from '@/lib/webgl/gpuFrame';
-import { classifyFateTiles, tileTriangles, TILE_MIXED, TILE_NONE, TILE_SKY, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { classifyFateTiles, GEOMETRY_STEP_PX, interiorSkyTiles, tileTriangles, TILE_MIXED, TILE_NONE, TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { createSourceTracer, SOURCE_RECORD_LENGTH, traceSourceDirection } from '@/lib/webgl/sourceDirections';
 import { renderSourceDirections } from '@/lib/webgl/sourceDirections';
 
 // Circular geodesic at r = 6M: energy (1 - 2/r) / sqrt(1 - 3/r), angular momentum sqrt(r) / sqrt(1 - 3/r)
@@ -117,4 +118,71 @@ describe('tileTriangles', () => {
       }
     }
   });
+});
+
+describe('interiorSkyTiles', () => {
+  it('should mark the sky tiles whose eight neighbours are sky, never on the frame border', () => {
+    const S = TILE_SKY;
+    // 5 x 4 tiles, a surface tile at (3, 1)
+    const tiles = { tilesX: 5, tilesY: 4, classes: Uint8Array.from([S, S, S, S, S, S, S, S, TILE_SURFACE, S, S, S, S, S, S, S, S, S, S, S]) };
+    const out = interiorSkyTiles(tiles);
+    // interior candidates (1..3, 1..2): (1, 1) and (1, 2) have all-sky neighbours; (2, *) touch the surface tile
+    const interior = Array.from(out.classes, (k, i) => (k === TILE_SKY_INTERIOR ? i : -1)).filter((i) => i >= 0);
+    expect(interior).toEqual([6, 11]);
+    // the input is left as it was
+    expect(Array.from(tiles.classes).includes(TILE_SKY_INTERIOR)).toBe(false);
+  });
+
+  // The claim behind interpolated geometry: where a tile is interior, the bilinear interpolation of the traced
+  // directions and footprints of the grid points GEOMETRY_STEP_PX apart (what shaders/sky.geometry.frag writes and
+  // sky.lensed.frag reads) stays within a small part of a pixel's footprint of each pixel's own trace (the
+  // reference: lib/render's trace, lib/webgl/sourceDirections.ts).
+  // the cases with sky away from the shadow (the others' frames are mostly shadow and ring at these sizes)
+  for (const c of CASES.filter((k) => /1\.2 M|0\.5 M|orbit/.test(k.name))) {
+    it(`should keep interpolated directions within 0.1 footprint of the traced ones in interior tiles: ${c.name}`, () => {
+      const req = request(c);
+      const frame = prepareGpuFrame(req);
+      const tiles = interiorSkyTiles(classifyFateTiles({ ...frame, table: frame.table! }, createProjector(req.projection, req.width, req.height)));
+      const tracer = createSourceTracer(prepareFrame(req, {}));
+      const step = GEOMETRY_STEP_PX;
+      const across = Math.floor((req.width - 1) / step) + 2;
+      const down = Math.floor((req.height - 1) / step) + 2;
+      const grid = new Float64Array(across * down * 4);
+      const rec = new Float64Array(SOURCE_RECORD_LENGTH);
+      for (let j = 0; j < down; j++) {
+        for (let i = 0; i < across; i++) {
+          traceSourceDirection(tracer, i * step + 0.5, j * step + 0.5, rec);
+          grid.set([rec[0], rec[1], rec[2], rec[10]], 4 * (j * across + i));
+        }
+      }
+      let worst = 0;
+      let worstFoot = 0;
+      let checked = 0;
+      for (let y = 0; y < req.height; y++) {
+        for (let x = 0; x < req.width; x++) {
+          if (tiles.classes[Math.floor(y / 16) * tiles.tilesX + Math.floor(x / 16)] !== TILE_SKY_INTERIOR) continue;
+          const gx = x / step;
+          const gy = y / step;
+          const i = Math.floor(gx);
+          const j = Math.floor(gy);
+          const fx = gx - i;
+          const fy = gy - j;
+          const v = [0, 0, 0, 0];
+          for (const [di, dj, w] of [[0, 0, (1 - fx) * (1 - fy)], [1, 0, fx * (1 - fy)], [0, 1, (1 - fx) * fy], [1, 1, fx * fy]]) {
+            for (let k = 0; k < 4; k++) v[k] += w * grid[4 * ((j + dj) * across + i + di) + k];
+          }
+          traceSourceDirection(tracer, x + 0.5, y + 0.5, rec);
+          expect(rec[9], `pixel ${x},${y} reaches the sky`).toBe(0);
+          const len = Math.hypot(v[0], v[1], v[2]);
+          const angle = Math.hypot(v[0] / len - rec[0], v[1] / len - rec[1], v[2] / len - rec[2]);
+          worst = Math.max(worst, angle / rec[10]);
+          worstFoot = Math.max(worstFoot, Math.abs(v[3] / rec[10] - 1));
+          checked++;
+        }
+      }
+      expect(checked).toBeGreaterThan(0);
+      expect(worst).toBeLessThan(0.1);
+      expect(worstFoot).toBeLessThan(0.05);
+    });
+  }
 });

@@ -3,7 +3,7 @@ import { parseFrameRequest } from '@/lib/render/schema';
 import { engineCameraOptics } from '@/lib/render/engine';
 import { prepareGpuFrame, TONE_MAP_CODES } from '@/lib/webgl/gpuFrame';
 import { PROJECTION_CODES } from '@/lib/webgl/projectionConstants';
-import { directionsShaderDefines, lensedShaderDefines, shaderVariantKey } from '@/lib/webgl/shaderVariant';
+import { directionsShaderDefines, lensedShaderDefines, shaderVariantKey, tileShaderDefines } from '@/lib/webgl/shaderVariant';
 
 /** A valid lib/render request: a camera hovering at 7 M unless the fields say otherwise. */
 const request = (fields: Record<string, unknown>) =>
@@ -62,6 +62,17 @@ describe('lensedShaderDefines', () => {
   it('should reject supersampling outside 1..4', () => {
     const frame = prepareGpuFrame(request({}));
     expect(() => lensedShaderDefines({ ...frame, supersampling: 5 }, sky)).toThrow(RangeError);
+  });
+});
+
+describe('tileShaderDefines', () => {
+  it('should interpolate the geometry only in the interior sky program, which keeps the sky sources and drops the surface grids', () => {
+    const full = { PROJECTION: 0, LENSING: 1, BOOST: 0, SAMPLES: 1, HORIZON_GRID: 1, FAR_SIDE_GRID: 0, DASHED_GRIDS: 1, CELESTIAL_GRID: 0, STARS: 1, DIFFUSE: 1, MILKY_WAY: 1, UNIFORM_SKY: 0 };
+    const programs = tileShaderDefines(full);
+    expect(programs.interior).toEqual({ ...programs.sky, INTERPOLATED_GEOMETRY: 1 });
+    expect(programs.interior).toMatchObject({ STARS: 1, DIFFUSE: 1, MILKY_WAY: 1, HORIZON_GRID: 0, DASHED_GRIDS: 0 });
+    expect(programs.sky.INTERPOLATED_GEOMETRY).toBeUndefined();
+    expect(programs.surface).toMatchObject({ STARS: 0, DIFFUSE: 0, HORIZON_GRID: 1 });
   });
 });
 
