@@ -170,10 +170,34 @@ void lookupRayTable(float psi, out float fate, out float phi, out float dPhiDPsi
 }
 
 // Where the light of frame point p (pixels from the top-left) comes from.
+// Frame point p -> look direction in the reference frame (camera frame axes, after the boost); pixelRad: the
+// pixel's angular size (< 0 outside a dome master's circle); doppler: E_camera / E_reference.
+vec3 referenceLook(vec2 p, out float pixelRad, out float doppler) {
+  vec3 view;
+  pixelRad = pixelToView(p, view);
+  vec3 n = uViewToCamera * view;
+  doppler = 1.0;
+#if LENSING && BOOST
+  doppler = boostLook(n, uBoostVelocity);
+#endif
+  return n;
+}
+
+// Observed / emitted frequency of the light arriving along reference-frame look direction n: the reference
+// observer's shift times the boost's Doppler factor (1 without lensing).
+float frequencyShift(vec3 n, float doppler) {
+  float g = 1.0;
+#if LENSING
+  g = 1.0 / abs(uEps - n.x * uUr);
+#endif
+  return g * doppler;
+}
+
 Trace traceFramePoint(vec2 p) {
   Trace tr;
-  vec3 view;
-  float pixelRad = pixelToView(p, view);
+  float pixelRad;
+  float doppler;
+  vec3 n = referenceLook(p, pixelRad, doppler);
 #if PROJECTION == 1
   if (pixelRad < 0.0) {
     tr.dir = vec3(0.0);
@@ -185,11 +209,6 @@ Trace traceFramePoint(vec2 p) {
     return tr;
   }
 #endif
-  vec3 n = uViewToCamera * view;
-  float doppler = 1.0;
-#if LENSING && BOOST
-  doppler = boostLook(n, uBoostVelocity);
-#endif
   float sinPsi = length(n.yz);
   vec2 tdir = vec2(1.0, 0.0);
   if (sinPsi > 1e-15) tdir = n.yz / sinPsi; else sinPsi = 0.0;
@@ -197,12 +216,10 @@ Trace traceFramePoint(vec2 p) {
   float fate = 0.0;
   float phi = psi;
   float dPhiDPsi = 1.0;
-  float g = 1.0;
 #if LENSING
   lookupRayTable(psi, fate, phi, dPhiDPsi);
-  g = 1.0 / abs(uEps - n.x * uUr);
 #endif
-  tr.g = g * doppler;
+  tr.g = frequencyShift(n, doppler);
   float cp = cos(phi);
   float sp = sin(phi);
   // e1 and the transverse look direction t in the hole frame; dir = cos(phi) e1 + sin(phi) t

@@ -133,18 +133,10 @@ vec2 gridCoord(vec2 p) {
 Trace interpolatedTrace(vec2 p) {
   Trace tr;
   vec4 geo = textureLod(uGeometry, gridCoord(p), 0.0);
-  vec3 view;
-  pixelToView(p, view);
-  vec3 n = uViewToCamera * view;
-  float doppler = 1.0;
-#if LENSING && BOOST
-  doppler = boostLook(n, uBoostVelocity);
-#endif
-#if LENSING
-  tr.g = doppler / abs(uEps - n.x * uUr);
-#else
-  tr.g = 1.0;
-#endif
+  float pixelRad;
+  float doppler;
+  vec3 n = referenceLook(p, pixelRad, doppler);
+  tr.g = frequencyShift(n, doppler);
   tr.dir = normalize(geo.xyz);
   tr.fate = 0.0;
   tr.footRad = geo.w;

@@ -41,6 +41,17 @@ export const TILE_SKY_INTERIOR = 4;
 export const GEOMETRY_STEP_PX = 4;
 
 /**
+ * Size of that grid for a frame: grid point (i, j) is the centre of pixel (i, j) x GEOMETRY_STEP_PX, and the grid
+ * reaches one point past the last pixel, so every pixel lies between four points.
+ * @param width frame width, px
+ * @param height frame height, px
+ * @returns grid points across and down
+ */
+export function geometryGridSize(width: number, height: number): { across: number; down: number } {
+  return { across: Math.floor((width - 1) / GEOMETRY_STEP_PX) + 2, down: Math.floor((height - 1) / GEOMETRY_STEP_PX) + 2 };
+}
+
+/**
  * Safety factor on a tile's angular radius: covers the curvature of its sampled edges between the sample
  * points (a few percent for 16 px tiles even under strong aberration), and float32 rounding on the GPU.
  */
@@ -263,4 +274,3 @@ export function tileTriangles(tiles: FateTiles, tileClass: number, width: number
   }
   return n;
 }
-

@@ -17,7 +17,7 @@ import { CELESTIAL_GRID } from '@/lib/webgl/sourceDirections';
 import { STAR_TILE_LEVELS } from '@/lib/webgl/starTiles';
 import { SKY_DIRECTIONS_FRAG, SKY_FULLSCREEN_VERT, SKY_GEOMETRY_FRAG, SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
 import { directionsShaderDefines, fateTilesPay, lensedShaderDefines, shaderVariantKey, tileShaderDefines, type ShaderDefines } from '@/lib/webgl/shaderVariant';
-import { classifyFateTiles, GEOMETRY_STEP_PX, interiorSkyTiles, tileTriangles, TILE_MIXED, TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { classifyFateTiles, GEOMETRY_STEP_PX, geometryGridSize, interiorSkyTiles, tileTriangles, TILE_MIXED, TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE } from '@/lib/webgl/fateTiles';
 import { createProjector } from '@/lib/render/projections';
 import { MILKY_WAY_TEMPERATURE_K } from '@/lib/render/milkyWay';
 import { hexToLinear } from '@/lib/render/shade';
@@ -285,7 +285,8 @@ export class GpuSkyRenderer {
       uniformBrightness: req.sky.uniform?.brightness ?? 0,
     });
     this.lensed = this.program(SKY_LENSED_FRAG, defines);
-    this.directions = this.program(SKY_DIRECTIONS_FRAG, directionsShaderDefines(frame));
+    const geometryDefines = directionsShaderDefines(frame);
+    this.directions = this.program(SKY_DIRECTIONS_FRAG, geometryDefines);
     this.interpolating = mode === 'image' && !!this.geometryTarget && frame.lensing && !!frame.table;
     this.tiled = fateTilesPay(frame) || this.interpolating;
     if (this.tiled) {
@@ -297,12 +298,11 @@ export class GpuSkyRenderer {
       this.fillTiles(frame, req);
     }
     if (this.interpolating && this.geometryTarget) {
-      const across = Math.floor((frame.width - 1) / GEOMETRY_STEP_PX) + 2;
-      const down = Math.floor((frame.height - 1) / GEOMETRY_STEP_PX) + 2;
+      const { across, down } = geometryGridSize(frame.width, frame.height);
       if (this.geometryTarget.width !== across || this.geometryTarget.height !== down) this.geometryTarget.setSize(across, down);
       (u.uGeometrySize.value as THREE.Vector2).set(across, down);
       u.uGeometry.value = this.geometryTarget.texture;
-      this.geometryMesh.material = this.program(SKY_GEOMETRY_FRAG, directionsShaderDefines(frame));
+      this.geometryMesh.material = this.program(SKY_GEOMETRY_FRAG, geometryDefines);
     }
   }
 

@@ -3,7 +3,7 @@ import { parseFrameRequest } from '@/lib/render/schema';
 import { prepareFrame } from '@/lib/render/frame';
 import { createProjector } from '@/lib/render/projections';
 import { prepareGpuFrame } from '@/lib/webgl/gpuFrame';
-import { classifyFateTiles, GEOMETRY_STEP_PX, interiorSkyTiles, tileTriangles, TILE_MIXED, TILE_NONE, TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE } from '@/lib/webgl/fateTiles';
+import { classifyFateTiles, GEOMETRY_STEP_PX, geometryGridSize, interiorSkyTiles, tileTriangles, TILE_MIXED, TILE_NONE, TILE_SKY, TILE_SKY_INTERIOR, TILE_SURFACE } from '@/lib/webgl/fateTiles';
 import { createSourceTracer, SOURCE_RECORD_LENGTH, traceSourceDirection } from '@/lib/webgl/sourceDirections';
 import { renderSourceDirections } from '@/lib/webgl/sourceDirections';
 
@@ -145,8 +145,7 @@ describe('interiorSkyTiles', () => {
       const tiles = interiorSkyTiles(classifyFateTiles({ ...frame, table: frame.table! }, createProjector(req.projection, req.width, req.height)));
       const tracer = createSourceTracer(prepareFrame(req, {}));
       const step = GEOMETRY_STEP_PX;
-      const across = Math.floor((req.width - 1) / step) + 2;
-      const down = Math.floor((req.height - 1) / step) + 2;
+      const { across, down } = geometryGridSize(req.width, req.height);
       const grid = new Float64Array(across * down * 4);
       const rec = new Float64Array(SOURCE_RECORD_LENGTH);
       for (let j = 0; j < down; j++) {
