@@ -28,13 +28,14 @@
 //   uColourLogMinK      float   ln T of the first entry (ln K);  uColourEntries float  entries in the table
 //   uColourIndexPerLog  float   table entries per unit of ln T
 //   uStarGain float;  uPsfSigmaPx float (pixels);  uSourceSizeRad float (radians)
-//   uStarTiles          usampler2D R32UI: first entry << uStarTileCountBits | entry count of each cube-map tile,
-//                       the levels one after the other, in rows as arrayTexel (lib/webgl/starTiles.ts StarTileIndex)
+//   uStarTiles          usamplerCube RGBA32UI, nearest texel, one level: per level (a channel each), the list of
+//                       that level's tile holding the texel, packed as first entry << uStarTileCountBits | entry
+//                       count (lib/webgl/starTiles.ts StarTileIndex)
 //   uStarTileCountBits  int     low bits of a packed tile holding its count
 //   uStarTileEntries    sampler2D RGBA float: unit vector times flux (mag-0 units), and ln(T / 1 K), of the star
 //                       of each list entry, in rows as arrayTexel
-//   uStarTileLevels[4]  vec4    per level, narrowest margin first: (tiles per face edge, largest kernel reach
-//                       served (3 sigma, chord of unit vectors), first tile in uStarTiles, 0)
+//   uStarTileMargins    vec4    per level, narrowest first: largest kernel reach served (3 sigma, chord of unit
+//                       vectors)
 //   uDiffuse            sampler2D RGBA float mip-mapped equirect (Milky Way per sr, star flux per sr,
 //                       star flux x K per sr);  uDiffuseTexelRad float (radians)
 //   uMilkyWayGain float;  uMilkyWayLogT float (ln K)
@@ -48,6 +49,7 @@ precision highp float;
 precision highp int;
 precision highp sampler2D;
 precision highp usampler2D;
+precision highp usamplerCube;
 
 #include "sky.common.glsl"
 
@@ -94,10 +96,10 @@ uniform float uColourIndexPerLog;
 uniform float uStarGain;
 uniform float uPsfSigmaPx;
 uniform float uSourceSizeRad;
-uniform highp usampler2D uStarTiles;
+uniform highp usamplerCube uStarTiles;
 uniform highp sampler2D uStarTileEntries;
 uniform int uStarTileCountBits;
-uniform vec4 uStarTileLevels[4];
+uniform vec4 uStarTileMargins;
 uniform highp sampler2D uDiffuse;
 uniform float uDiffuseTexelRad;
 uniform float uMilkyWayGain;
@@ -153,22 +155,6 @@ vec3 blackbodyLog(float logT) {
 }
 
 #if STARS
-// lib/webgl/starTiles.ts starTileOf: face, column and row of the tile holding direction d, with n tiles per
-// face edge, as an element of uStarTiles whose level starts at element offset.
-int starTileIndex(vec3 d, float n, int offset) {
-  // without branches (see sky.common.glsl): the face of the largest component, the other two divided by it
-  vec3 a = abs(d);
-  bool onX = a.x >= a.y && a.x >= a.z;
-  bool onY = !onX && a.y >= a.z;
-  int axis = onX ? 0 : onY ? 1 : 2;
-  float major = onX ? d.x : onY ? d.y : d.z;
-  vec2 uv = (onX ? d.yz : onY ? d.xz : d.xy) / abs(major);
-  int face = 2 * axis + (major >= 0.0 ? 0 : 1);
-  int edge = int(n);
-  ivec2 cr = clamp(ivec2(floor((uv + 1.0) * 0.5 * n)), ivec2(0), ivec2(edge - 1));
-  return offset + (face * edge + cr.y) * edge + cr.x;
-}
-
 // Star light by Gaussian kernels on the sky (lib/render/shade.ts, the star loop): every star closer than
 // reach = 3 sigma adds its kernel. The one tile list read holds every star within its margin of the tile: that
 // of the first level whose margin covers the reach (the last level's margin is the widest reach summed).
@@ -178,11 +164,11 @@ vec2 starLight(vec3 d, float sigma, float weight) {
   float reach2 = reach * reach;
   float inv2s2 = 1.0 / (2.0 * sigma * sigma);
   float norm = uStarGain * weight / (2.0 * PI * sigma * sigma);
-  vec4 level = uStarTileLevels[3];
-  if (reach <= uStarTileLevels[2].y) level = uStarTileLevels[2];
-  if (reach <= uStarTileLevels[1].y) level = uStarTileLevels[1];
-  if (reach <= uStarTileLevels[0].y) level = uStarTileLevels[0];
-  uint list = texelFetch(uStarTiles, arrayTexel(starTileIndex(d, level.x, int(level.z + 0.5))), 0).r;
+  // the lists of the tiles holding d (lib/webgl/starTiles.ts starTileOf), found by the sampler's own cube-map
+  // lookup, then the list of the first level whose margin covers the reach
+  uvec4 lists = textureLod(uStarTiles, d, 0.0);
+  vec4 m = uStarTileMargins;
+  uint list = reach <= m.x ? lists.x : reach <= m.y ? lists.y : reach <= m.z ? lists.z : lists.w;
   uint bits = uint(uStarTileCountBits);
   int first = int(list >> bits);
   int end = first + int(list & ((1u << bits) - 1u));

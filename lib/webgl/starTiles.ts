@@ -1,17 +1,25 @@
 /**
  * A 2-D star index for the GPU star loop: the sphere cut into cube-map tiles
- * (the face of the largest component of a unit vector, then a uniform grid in
- * the other two components divided by it), each tile listing every star within
- * a margin (chord distance) of any point of the tile. Several levels
- * (STAR_TILE_LEVELS): fine tiles with small margins for the usual narrow
- * kernels, coarse tiles whose margin is the widest kernel reach the star loop
- * ever sums (3 sigma below STAR_CELL_SIZE, lib/render/shade.ts); a pixel reads
- * the first level whose margin covers its reach. So every pixel finds all the stars
+ * (the texels of a cube map, with the faces and texel axes of OpenGL ES 3.0
+ * section 3.8.10, so the GPU's own cube-map lookup finds a direction's tile),
+ * each tile listing every star within a margin (chord distance) of any point
+ * of the tile. Several levels (STAR_TILE_LEVELS, one channel of the cube map
+ * each, a coarse tile's word repeated in every texel it covers): fine tiles
+ * with small margins for the usual narrow kernels, coarse tiles
+ * whose margin is the widest kernel reach the star loop ever sums (3 sigma
+ * below STAR_CELL_SIZE, lib/render/shade.ts); a pixel reads the first level
+ * whose margin covers its reach. So every pixel finds all the stars
  * lib/render's star loop would sum (every star with |star - d| below 3 sigma)
  * in one list, with one loop, instead of walking up to eight cells of
  * lib/render's 3-D grid (lib/render/starField.ts), three nested loops that
  * software WebGL runs slowly. Built once per catalogue and magnitude limit.
- * The GPU twin of starTileOf is starTileIndex in shaders/sky.lensed.frag.
+ *
+ * Why a cube map, and why the levels as channels: software WebGL
+ * (SwiftShader) finds a cube-map texel in its own compiled sampler, where the
+ * same face choice and texel arithmetic written in GLSL cost about 15% of a
+ * 1280x720 frame; but its sampler for a mip-mapped cube map costs that gain
+ * again. One fetch of four channels gives every level's list. The shader's
+ * textureLod on the tile cube is the GPU twin of starTileOf.
  *
  * Software WebGL runs a loop for the longest list among neighbouring pixels,
  * and one texture fetch per star costs about as much as the rest of the
@@ -32,13 +40,14 @@ export interface StarTileLevel {
 }
 
 /**
- * The levels, narrowest margin first. Reaches are about 2.4 pixel footprints (sigma 0.8 px): 0.0026 at
+ * The levels, narrowest margin first, one per channel of the tile cube (so four at most); each level's tiles
+ * per edge divide STAR_TILE_CUBE_EDGE. Reaches are about 2.4 pixel footprints (sigma 0.8 px): 0.0026 at
  * 1280 x 720 and 0.0053 at 640 x 360 for a 70-degree flat frame, more where lensing magnifies (up to
  * STAR_CELL_SIZE, the widest reach summed star by star, in the squeezed ring around the shadow). With the
  * 8.5 mag catalogue (41,411 stars) the lists hold on average 0.28, 1.58, 3.1 and 8.5 stars (longest 8, 19, 23
  * and 38). Against 256 per edge (0.72 stars) the first level's finer tiles cut the HD frame's star loop by more
- * than half, and the 0.013 level saves about 9% of a frame with a wide squeezed ring; all four take about
- * 60 MB of textures (3.1 million entries).
+ * than half, and the 0.013 level saves about 9% of a frame with a wide squeezed ring; the entries take about
+ * 50 MB (3.1 million) and the cube 25 MB.
  */
 export const STAR_TILE_LEVELS: readonly StarTileLevel[] = [
   { tilesPerEdge: 512, marginChord: 0.003 },
@@ -47,30 +56,33 @@ export const STAR_TILE_LEVELS: readonly StarTileLevel[] = [
   { tilesPerEdge: 128, marginChord: STAR_CELL_SIZE },
 ];
 
+/** Texels per edge of each face of the tile cube: the finest level's tiles. */
+export const STAR_TILE_CUBE_EDGE = 512;
+
 /**
  * Extra margin added when the lists are built, chord: covers float32 rounding of the GPU's tile choice
  * (~1e-7) many times over.
  */
 const SAFETY_CHORD = 1e-5;
 
-/** A 1-D array of unsigned integers laid out in rows of a texture (one channel). */
+/** An image of unsigned integers, `channels` per texel, rows from the first. */
 export interface UintImage {
   width: number;
   height: number;
+  channels: number;
   data: Uint32Array;
 }
 
 /** The tile index in GPU form. */
 export interface StarTileIndex {
   /**
-   * One unsigned integer per tile: first entry << countBits | entry count. Tile t of a level is element
-   * levelOffset[level] + (face * tilesPerEdge + row) * tilesPerEdge + column, ARRAY_TEXTURE_WIDTH per row.
+   * The tile cube: tiles[face] is that cube-map face (STAR_TILE_CUBE_EDGE texels per edge, column = s texel,
+   * row = t texel, as starTileOf), one channel per level (unused channels 0: empty lists), each holding the
+   * packed list (first entry << countBits | entry count) of the level's tile that contains the texel.
    */
-  tiles: UintImage;
+  tiles: UintImage[];
   /** low bits of a packed tile holding its list length: the fewest that hold the longest list */
   countBits: number;
-  /** first element of each level in `tiles` */
-  levelOffset: number[];
   /**
    * RGBA per entry: the star's hole-frame unit vector times its flux (mag-0 units; its length is the flux),
    * and ln(T / 1 K); ARRAY_TEXTURE_WIDTH wide. decodeStarEntry reads one back.
@@ -117,7 +129,7 @@ export function unpackTile(packed: number, countBits: number): { first: number; 
   return { first: Math.floor(packed / 2 ** countBits), count: packed % 2 ** countBits };
 }
 
-/** Tile of a unit vector: face 0..5 (+x, -x, +y, -y, +z, -z) and column/row on that face. */
+/** Tile of a unit vector: cube-map face 0..5 (+x, -x, +y, -y, +z, -z) and column (s) and row (t) on that face. */
 export interface StarTile {
   face: number;
   column: number;
@@ -125,7 +137,23 @@ export interface StarTile {
 }
 
 /**
- * The tile holding a direction (the shader's starTile).
+ * Per face, the axes of OpenGL ES 3.0.6 section 3.8.10, Table 3.21 (cube map image selection): the major axis
+ * (component index and sign), and sc and tc as a sign times a component. A direction d on face f has
+ * s = (sc / |ma| + 1) / 2 and t = (tc / |ma| + 1) / 2.
+ */
+const CUBE_FACES: readonly { major: number; majorSign: number; s: number; sSign: number; t: number; tSign: number }[] = [
+  { major: 0, majorSign: 1, s: 2, sSign: -1, t: 1, tSign: -1 },
+  { major: 0, majorSign: -1, s: 2, sSign: 1, t: 1, tSign: -1 },
+  { major: 1, majorSign: 1, s: 0, sSign: 1, t: 2, tSign: 1 },
+  { major: 1, majorSign: -1, s: 0, sSign: 1, t: 2, tSign: -1 },
+  { major: 2, majorSign: 1, s: 0, sSign: 1, t: 1, tSign: -1 },
+  { major: 2, majorSign: -1, s: 0, sSign: -1, t: 1, tSign: -1 },
+];
+
+/**
+ * The tile holding a direction, as a cube-map lookup picks its texel (the shader's textureLod on uStarTiles).
+ * Where two components are equal in size the GPU may pick either face (the specification leaves it open);
+ * either tile holds the direction on its edge, so its list serves it too.
  * @param x hole-frame unit vector x (any non-zero vector; only its direction matters)
  * @param y unit vector y
  * @param z unit vector z
@@ -136,41 +164,27 @@ export interface StarTile {
  */
 export function starTileOf(x: number, y: number, z: number, tilesPerEdge: number, out: StarTile): StarTile {
   if (!Number.isInteger(tilesPerEdge) || tilesPerEdge < 1) throw new RangeError(`tilesPerEdge must be an integer >= 1; got ${tilesPerEdge}`);
-  const ax = Math.abs(x);
-  const ay = Math.abs(y);
-  const az = Math.abs(z);
-  if (!(Number.isFinite(ax + ay + az) && ax + ay + az > 0)) throw new RangeError('x, y, z: a finite non-zero vector');
-  let u: number;
-  let v: number;
-  if (ax >= ay && ax >= az) {
-    out.face = x >= 0 ? 0 : 1;
-    u = y / ax;
-    v = z / ax;
-  } else if (ay >= az) {
-    out.face = y >= 0 ? 2 : 3;
-    u = x / ay;
-    v = z / ay;
-  } else {
-    out.face = z >= 0 ? 4 : 5;
-    u = x / az;
-    v = y / az;
-  }
+  const d = [x, y, z];
+  const a = [Math.abs(x), Math.abs(y), Math.abs(z)];
+  if (!(Number.isFinite(a[0] + a[1] + a[2]) && a[0] + a[1] + a[2] > 0)) throw new RangeError('x, y, z: a finite non-zero vector');
+  const major = a[0] >= a[1] && a[0] >= a[2] ? 0 : a[1] >= a[2] ? 1 : 2;
+  out.face = 2 * major + (d[major] >= 0 ? 0 : 1);
+  const f = CUBE_FACES[out.face];
+  const s = ((f.sSign * d[f.s]) / a[major] + 1) / 2;
+  const t = ((f.tSign * d[f.t]) / a[major] + 1) / 2;
   const n = tilesPerEdge;
-  out.column = Math.min(n - 1, Math.max(0, Math.floor((u + 1) * 0.5 * n)));
-  out.row = Math.min(n - 1, Math.max(0, Math.floor((v + 1) * 0.5 * n)));
+  out.column = Math.min(n - 1, Math.max(0, Math.floor(s * n)));
+  out.row = Math.min(n - 1, Math.max(0, Math.floor(t * n)));
   return out;
 }
 
-/** Unit vector of face coordinates (u, v) in -1..1 on a face, into out. */
+/** Unit vector of face coordinates sc/|ma| = u and tc/|ma| = v (each -1..1) on a face, into out. */
 function faceDirection(face: number, u: number, v: number, out: Float64Array): void {
-  const s = face % 2 === 0 ? 1 : -1;
+  const f = CUBE_FACES[face];
   const inv = 1 / Math.sqrt(1 + u * u + v * v);
-  const a = face < 2 ? s : u;
-  const b = face < 2 ? u : face < 4 ? s : v;
-  const c = face < 4 ? v : s;
-  out[0] = a * inv;
-  out[1] = b * inv;
-  out[2] = c * inv;
+  out[f.major] = f.majorSign * inv;
+  out[f.s] = f.sSign * u * inv;
+  out[f.t] = f.tSign * v * inv;
 }
 
 /** Growable list of star indices. */
@@ -179,7 +193,7 @@ interface StarList {
   used: number;
 }
 
-/** Append the lists of one level's tiles to `list`; tile t's (first, count) go to first[t], count[t]. */
+/** Append the lists of one level's tiles to `list`; tile t = (face * n + row) * n + column's (first, count) go to first[t], count[t]. */
 function addLevel(field: StarField, n: number, margin: number, list: StarList, first: Uint32Array, count: Uint32Array): void {
   const centre = new Float64Array(3);
   const corner = new Float64Array(3);
@@ -233,27 +247,36 @@ function addLevel(field: StarField, n: number, margin: number, list: StarList, f
  * @returns the index
  */
 export function buildStarTileIndex(field: StarField): StarTileIndex {
-  const list: StarList = { items: new Int32Array(1 << 16), used: 0 };
-  const levelOffset: number[] = [];
-  let tileCount = 0;
-  for (const level of STAR_TILE_LEVELS) {
-    levelOffset.push(tileCount);
-    tileCount += 6 * level.tilesPerEdge * level.tilesPerEdge;
+  if (STAR_TILE_LEVELS.length > 4 || STAR_TILE_LEVELS.some((level) => STAR_TILE_CUBE_EDGE % level.tilesPerEdge !== 0)) {
+    throw new RangeError('STAR_TILE_LEVELS: at most four levels, each with tiles per edge dividing STAR_TILE_CUBE_EDGE');
   }
-  const first = new Uint32Array(tileCount);
-  const count = new Uint32Array(tileCount);
-  STAR_TILE_LEVELS.forEach((level, k) => {
-    const end = levelOffset[k] + 6 * level.tilesPerEdge * level.tilesPerEdge;
-    addLevel(field, level.tilesPerEdge, level.marginChord, list, first.subarray(levelOffset[k], end), count.subarray(levelOffset[k], end));
+  const list: StarList = { items: new Int32Array(1 << 16), used: 0 };
+  const levels = STAR_TILE_LEVELS.map((level) => {
+    const tiles = 6 * level.tilesPerEdge * level.tilesPerEdge;
+    const first = new Uint32Array(tiles);
+    const count = new Uint32Array(tiles);
+    addLevel(field, level.tilesPerEdge, level.marginChord, list, first, count);
+    return { n: level.tilesPerEdge, first, count };
   });
   const used = list.used;
   let maxListLength = 0;
-  for (let t = 0; t < tileCount; t++) maxListLength = Math.max(maxListLength, count[t]);
+  for (const level of levels) for (const c of level.count) maxListLength = Math.max(maxListLength, c);
   const countBits = Math.max(1, Math.ceil(Math.log2(maxListLength + 1)));
   if (used * 2 ** countBits > 2 ** 32) throw new RangeError(`${used} star tile entries with lists of up to ${maxListLength} do not fit 32-bit packed tiles`);
-  const tileRows = arrayTextureRows(tileCount);
-  const tiles: UintImage = { width: ARRAY_TEXTURE_WIDTH, height: tileRows, data: new Uint32Array(ARRAY_TEXTURE_WIDTH * tileRows) };
-  for (let t = 0; t < tileCount; t++) tiles.data[t] = first[t] * 2 ** countBits + count[t];
+  const edge = STAR_TILE_CUBE_EDGE;
+  const tiles = Array.from({ length: 6 }, (_, face): UintImage => {
+    const data = new Uint32Array(edge * edge * 4);
+    levels.forEach(({ n, first, count }, k) => {
+      const texelsPerTile = edge / n;
+      for (let row = 0; row < edge; row++) {
+        for (let column = 0; column < edge; column++) {
+          const t = (face * n + Math.floor(row / texelsPerTile)) * n + Math.floor(column / texelsPerTile);
+          data[4 * (row * edge + column) + k] = first[t] * 2 ** countBits + count[t];
+        }
+      }
+    });
+    return { width: edge, height: edge, channels: 4, data };
+  });
   const entryRows = arrayTextureRows(used);
   const entries: FloatImage = { width: ARRAY_TEXTURE_WIDTH, height: entryRows, channels: 4, data: new Float32Array(ARRAY_TEXTURE_WIDTH * entryRows * 4) };
   for (let k = 0; k < used; k++) {
@@ -264,5 +287,5 @@ export function buildStarTileIndex(field: StarField): StarTileIndex {
     entries.data[4 * k + 2] = field.z[s] * flux;
     entries.data[4 * k + 3] = field.logTemperature[s];
   }
-  return { tiles, countBits, levelOffset, entries, entryCount: used, maxListLength };
+  return { tiles, countBits, entries, entryCount: used, maxListLength };
 }

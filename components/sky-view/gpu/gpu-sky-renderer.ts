@@ -21,7 +21,7 @@ import { classifyFateTiles, GEOMETRY_STEP_PX, geometryGridSize, interiorSkyTiles
 import { createProjector } from '@/lib/render/projections';
 import { MILKY_WAY_TEMPERATURE_K } from '@/lib/render/milkyWay';
 import { hexToLinear } from '@/lib/render/shade';
-import { colourTexture, dataTexture, diffuseTexture, RayTableTexture, starTextures, uintTexture, type StarGpuTextures } from './sky-textures';
+import { colourTexture, dataTexture, diffuseTexture, RayTableTexture, starTextures, uintCubeTexture, type StarGpuTextures } from './sky-textures';
 import type { GpuSkyData } from './sky-data';
 
 /** Display mode: the picture, or the picture with the celestial grid drawn through the lensing. */
@@ -102,8 +102,8 @@ export class GpuSkyRenderer {
   private readonly uniforms: Record<string, THREE.IUniform>;
   private readonly rayTable = new RayTableTexture();
   private readonly placeholder = dataTexture({ width: 1, height: 1, channels: 4, data: new Float32Array(4) });
-  /** stands in for the integer tile texture (an integer sampler must not see a float texture) */
-  private readonly uintPlaceholder = uintTexture({ width: 1, height: 1, data: new Uint32Array(1) });
+  /** stands in for the integer tile cube (an integer cube sampler must see an integer cube map): empty lists */
+  private readonly tilePlaceholder = uintCubeTexture(Array.from({ length: 6 }, () => ({ width: 1, height: 1, channels: 4, data: new Uint32Array(4) })));
   private sky: { data: GpuSkyData; stars: StarGpuTextures | null; diffuse: THREE.DataTexture | null; colour: THREE.DataTexture } | null = null;
   private last: GpuFrame | undefined;
   private lastKey = '';
@@ -136,10 +136,10 @@ export class GpuSkyRenderer {
       uStarGain: { value: 1 },
       uPsfSigmaPx: { value: 0.8 },
       uSourceSizeRad: { value: 5 * ARCSEC_RAD },
-      uStarTiles: { value: this.uintPlaceholder },
+      uStarTiles: { value: this.tilePlaceholder },
       uStarTileEntries: { value: this.placeholder },
       uStarTileCountBits: { value: 1 },
-      uStarTileLevels: { value: new Float32Array(4 * STAR_TILE_LEVELS.length) },
+      uStarTileMargins: { value: new THREE.Vector4().fromArray(STAR_TILE_LEVELS.map((level) => level.marginChord)) },
       uDiffuse: { value: this.placeholder },
       uDiffuseTexelRad: { value: Math.PI / 512 },
       uMilkyWayGain: { value: 1 },
@@ -208,11 +208,9 @@ export class GpuSkyRenderer {
     u.uColourLogMinK.value = data.colour.logMinK;
     u.uColourEntries.value = data.colour.image.width;
     u.uColourIndexPerLog.value = (data.colour.image.width - 1) / data.colour.logSpan;
-    u.uStarTiles.value = this.sky.stars?.tiles ?? this.uintPlaceholder;
+    u.uStarTiles.value = this.sky.stars?.tiles ?? this.tilePlaceholder;
     u.uStarTileEntries.value = this.sky.stars?.tileEntries ?? this.placeholder;
     u.uStarTileCountBits.value = data.stars?.tiles.countBits ?? 1;
-    const levels = u.uStarTileLevels.value as Float32Array;
-    STAR_TILE_LEVELS.forEach((level, k) => levels.set([level.tilesPerEdge, level.marginChord, data.stars?.tiles.levelOffset[k] ?? 0, 0], 4 * k));
     u.uDiffuse.value = this.sky.diffuse ?? this.placeholder;
     u.uDiffuseTexelRad.value = data.diffuse?.texelRad ?? Math.PI / 512;
     this.lastKey = '';
@@ -395,7 +393,7 @@ export class GpuSkyRenderer {
     this.geometryTarget?.dispose();
     this.geometryMesh.geometry.dispose();
     this.placeholder.dispose();
-    this.uintPlaceholder.dispose();
+    this.tilePlaceholder.dispose();
     for (const material of this.programs.values()) material.dispose();
     this.programs.clear();
     this.mesh.geometry.dispose();

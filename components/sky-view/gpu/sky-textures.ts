@@ -19,13 +19,25 @@ export function dataTexture(image: FloatImage): THREE.DataTexture {
   return tex;
 }
 
-/** A nearest-filtered unsigned-integer texture (R32UI) holding a 1-D array laid out in rows. */
-export function uintTexture(image: UintImage): THREE.DataTexture {
-  const tex = new THREE.DataTexture(image.data, image.width, image.height, THREE.RedIntegerFormat, THREE.UnsignedIntType);
-  tex.internalFormat = 'R32UI';
+/** An integer cube map (R32UI or RGBA32UI by the faces' channels, nearest texel; faces +x, -x, +y, -y, +z, -z). */
+export function uintCubeTexture(faces: readonly UintImage[]): THREE.CubeTexture {
+  const rgba = faces[0].channels === 4;
+  const format = rgba ? THREE.RGBAIntegerFormat : THREE.RedIntegerFormat;
+  const internalFormat = rgba ? 'RGBA32UI' : 'R32UI';
+  const tex = new THREE.CubeTexture(
+    faces.map((image) => {
+      const face = new THREE.DataTexture(image.data, image.width, image.height, format, THREE.UnsignedIntType);
+      face.internalFormat = internalFormat;
+      return face;
+    }),
+  );
+  tex.format = format;
+  tex.type = THREE.UnsignedIntType;
+  tex.internalFormat = internalFormat;
   tex.minFilter = THREE.NearestFilter;
   tex.magFilter = THREE.NearestFilter;
   tex.generateMipmaps = false;
+  tex.flipY = false;
   tex.needsUpdate = true;
   return tex;
 }
@@ -90,8 +102,8 @@ export class RayTableTexture {
 
 /** GPU copies of the star data: the tile lists of lib/webgl/starTiles.ts. */
 export interface StarGpuTextures {
-  /** per tile: first entry and count, packed */
-  tiles: THREE.DataTexture;
+  /** per tile: first entry and count, packed; a cube map whose mip levels are the tile levels */
+  tiles: THREE.CubeTexture;
   /** per entry: unit vector times flux, ln T */
   tileEntries: THREE.DataTexture;
 }
@@ -99,7 +111,7 @@ export interface StarGpuTextures {
 /** Upload star textures. */
 export function starTextures(stars: StarTextures): StarGpuTextures {
   return {
-    tiles: uintTexture(stars.tiles.tiles),
+    tiles: uintCubeTexture(stars.tiles.tiles),
     tileEntries: dataTexture(stars.tiles.entries),
   };
 }

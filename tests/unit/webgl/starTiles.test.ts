@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildStarField, STAR_CELL_SIZE } from '@/lib/render/starField';
 import { allocateCatalogue, type StarCatalogue } from '@/lib/render/starCatalogue';
 import { engineTemperatureFromBv } from '@/lib/render/engine';
-import { buildStarTileIndex, decodeStarEntry, STAR_TILE_LEVELS, starTileOf, unpackTile, type StarEntry, type StarTile } from '@/lib/webgl/starTiles';
+import { buildStarTileIndex, decodeStarEntry, STAR_TILE_CUBE_EDGE, STAR_TILE_LEVELS, starTileOf, unpackTile, type StarEntry, type StarTile } from '@/lib/webgl/starTiles';
 import { SKY_LENSED_FRAG } from '@/lib/webgl/shaderSources';
 import { expectClose } from './close';
 
@@ -28,12 +28,15 @@ function syntheticCatalogue(count: number): StarCatalogue {
 const field = buildStarField(syntheticCatalogue(4000), 8.5, engineTemperatureFromBv);
 const index = buildStarTileIndex(field);
 
-/** The list of the tile of level k holding direction d. */
+/** Channel k of the tile cube's texel (face, column, row): the packed list of level k there. */
+function packedAt(face: number, column: number, row: number, k: number): number {
+  return index.tiles[face].data[4 * (row * STAR_TILE_CUBE_EDGE + column) + k];
+}
+
+/** The list of level k that the shader reads for direction d: channel k of the cube texel holding d. */
 function listOf(k: number, d: readonly number[]): { first: number; count: number } {
-  const level = STAR_TILE_LEVELS[k];
-  const t = starTileOf(d[0], d[1], d[2], level.tilesPerEdge, { face: 0, column: 0, row: 0 });
-  const n = level.tilesPerEdge;
-  return unpackTile(index.tiles.data[index.levelOffset[k] + (t.face * n + t.row) * n + t.column], index.countBits);
+  const t = starTileOf(d[0], d[1], d[2], STAR_TILE_CUBE_EDGE, { face: 0, column: 0, row: 0 });
+  return unpackTile(packedAt(t.face, t.column, t.row, k), index.countBits);
 }
 
 const entry = (): StarEntry => ({ x: 0, y: 0, z: 0, flux: 0, logTemperature: 0 });
@@ -48,6 +51,24 @@ describe('starTileOf', () => {
       expect(out.column).toBe(128);
       expect(out.row).toBe(128);
     });
+  });
+
+  it('should pick the face and texel of a cube-map lookup (OpenGL ES 3.0.6 section 3.8.10, Table 3.21: major axis, sc, tc)', () => {
+    // one direction off the centre of each face, (s, t) = ((sc / |ma| + 1) / 2, (tc / |ma| + 1) / 2) from the table
+    const cases: { d: number[]; face: number; s: number; t: number }[] = [
+      { d: [1, -0.5, 0.25], face: 0, s: (-0.25 + 1) / 2, t: (0.5 + 1) / 2 }, // +x: sc = -rz, tc = -ry
+      { d: [-1, -0.5, 0.25], face: 1, s: (0.25 + 1) / 2, t: (0.5 + 1) / 2 }, // -x: sc = +rz, tc = -ry
+      { d: [0.25, 1, -0.5], face: 2, s: (0.25 + 1) / 2, t: (-0.5 + 1) / 2 }, // +y: sc = +rx, tc = +rz
+      { d: [0.25, -1, -0.5], face: 3, s: (0.25 + 1) / 2, t: (0.5 + 1) / 2 }, // -y: sc = +rx, tc = -rz
+      { d: [0.25, -0.5, 1], face: 4, s: (0.25 + 1) / 2, t: (0.5 + 1) / 2 }, // +z: sc = +rx, tc = -ry
+      { d: [0.25, -0.5, -1], face: 5, s: (-0.25 + 1) / 2, t: (0.5 + 1) / 2 }, // -z: sc = -rx, tc = -ry
+    ];
+    const out: StarTile = { face: -1, column: -1, row: -1 };
+    for (const c of cases) {
+      // any length: only the direction matters
+      starTileOf(3 * c.d[0], 3 * c.d[1], 3 * c.d[2], 64, out);
+      expect(out).toEqual({ face: c.face, column: Math.floor(c.s * 64), row: Math.floor(c.t * 64) });
+    }
   });
 
   it('should reject a zero vector and a bad tile count', () => {
@@ -99,9 +120,14 @@ describe('buildStarTileIndex', () => {
     for (let k = 1; k < STAR_TILE_LEVELS.length; k++) expect(STAR_TILE_LEVELS[k].marginChord).toBeGreaterThan(STAR_TILE_LEVELS[k - 1].marginChord);
   });
 
-  it('should have as many levels as the shader reads (shaders/sky.lensed.frag uStarTileLevels; common practice: one source of truth checked)', () => {
-    expect(SKY_LENSED_FRAG).toContain(`uniform vec4 uStarTileLevels[${STAR_TILE_LEVELS.length}];`);
-    expect(index.levelOffset.length).toBe(STAR_TILE_LEVELS.length);
+  it('should have as many levels as the shader reads, one per channel of the tile cube (shaders/sky.lensed.frag; common practice: one source of truth checked)', () => {
+    expect(SKY_LENSED_FRAG).toContain('uniform vec4 uStarTileMargins;');
+    expect(SKY_LENSED_FRAG).toContain('reach <= m.x ? lists.x : reach <= m.y ? lists.y : reach <= m.z ? lists.z : lists.w');
+    expect(STAR_TILE_LEVELS.length).toBe(4);
+    for (const level of STAR_TILE_LEVELS) expect(STAR_TILE_CUBE_EDGE % level.tilesPerEdge).toBe(0);
+    expect(index.tiles.map((face) => [face.width, face.height, face.channels, face.data.length])).toEqual(
+      Array.from({ length: 6 }, () => [STAR_TILE_CUBE_EDGE, STAR_TILE_CUBE_EDGE, 4, 4 * STAR_TILE_CUBE_EDGE * STAR_TILE_CUBE_EDGE]),
+    );
   });
 
   it('should carry each listed star direction, flux and log temperature from lib/render buildStarField', () => {
@@ -129,19 +155,27 @@ describe('buildStarTileIndex', () => {
     expect(index.maxListLength).toBeGreaterThan(0);
   });
 
-  it('should pack each tile as first entry and count, the lists covering the entries without gaps', () => {
+  it('should pack each tile as first entry and count, the same in every texel it covers, the lists covering the entries without gaps', () => {
     let covered = 0;
     let expectedFirst = 0;
     const misplaced: string[] = [];
     for (let k = 0; k < STAR_TILE_LEVELS.length; k++) {
       const n = STAR_TILE_LEVELS[k].tilesPerEdge;
-      for (let t = 0; t < 6 * n * n; t++) {
-        const { first, count } = unpackTile(index.tiles.data[index.levelOffset[k] + t], index.countBits);
-        // lists are appended tile after tile, level after level
-        if (count > 0 && first !== expectedFirst) misplaced.push(`level ${k} tile ${t}: first ${first}, expected ${expectedFirst}`);
-        if (count > index.maxListLength) misplaced.push(`level ${k} tile ${t}: count ${count} over the longest list`);
-        expectedFirst = first + count;
-        covered += count;
+      const texels = STAR_TILE_CUBE_EDGE / n;
+      for (let face = 0; face < 6; face++) {
+        for (let row = 0; row < n; row++) {
+          for (let column = 0; column < n; column++) {
+            const packed = packedAt(face, column * texels, row * texels, k);
+            // the far corner texel of the tile carries the same list
+            if (packedAt(face, (column + 1) * texels - 1, (row + 1) * texels - 1, k) !== packed) misplaced.push(`level ${k} face ${face} tile ${column},${row}: texels differ`);
+            const { first, count } = unpackTile(packed, index.countBits);
+            // lists are appended level after level, face after face, row after row
+            if (count > 0 && first !== expectedFirst) misplaced.push(`level ${k} face ${face} tile ${column},${row}: first ${first}, expected ${expectedFirst}`);
+            if (count > index.maxListLength) misplaced.push(`level ${k} face ${face} tile ${column},${row}: count ${count} over the longest list`);
+            expectedFirst = first + count;
+            covered += count;
+          }
+        }
       }
     }
     expect(misplaced.slice(0, 5)).toEqual([]);
