@@ -28,7 +28,7 @@
 //   uColourLogMinK      float   ln T of the first entry (ln K);  uColourEntries float  entries in the table
 //   uColourIndexPerLog  float   table entries per unit of ln T
 //   uStarGain float;  uPsfSigmaPx float (pixels);  uSourceSizeRad float (radians)
-//   uStarTiles          usamplerCube RGBA32UI, nearest texel, one level: per level (a channel each), the list of
+//   uStarTiles          usamplerCube RGBA32UI, nearest texel, no mip levels: per level (a channel each), the list of
 //                       that level's tile holding the texel, packed as first entry << uStarTileCountBits | entry
 //                       count (lib/webgl/starTiles.ts StarTileIndex)
 //   uStarTileCountBits  int     low bits of a packed tile holding its count
@@ -48,7 +48,6 @@
 precision highp float;
 precision highp int;
 precision highp sampler2D;
-precision highp usampler2D;
 precision highp usamplerCube;
 
 #include "sky.common.glsl"

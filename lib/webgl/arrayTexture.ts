@@ -1,5 +1,5 @@
 /**
- * How the WebGL view lays a 1-D array (ray-table nodes, star tiles, star entries) into a texture: rows of
+ * How the WebGL view lays a 1-D array (ray-table nodes, star entries) into a texture: rows of
  * ARRAY_TEXTURE_WIDTH texels, element i at column i mod width, row i div width. The shaders read them with
  * arrayTexel (shaders/sky.common.glsl), whose shift and mask assume this width.
  */

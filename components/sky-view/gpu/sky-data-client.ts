@@ -6,7 +6,7 @@
  */
 import { loadAndBuildGpuSkyData, type GpuSkyData } from './sky-data';
 
-/** Sky data already built, by asset base and magnitude limit (a few, since each holds ~75 MB of star textures). */
+/** Sky data already built, by asset base and magnitude limit (a few, since each holds ~85 MB of star textures). */
 const built = new Map<string, GpuSkyData>();
 const BUILT_KEPT = 3;
 const keyOf = (base: string, limit: number) => `${base}|${limit}`;

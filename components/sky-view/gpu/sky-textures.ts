@@ -19,21 +19,18 @@ export function dataTexture(image: FloatImage): THREE.DataTexture {
   return tex;
 }
 
-/** An integer cube map (R32UI or RGBA32UI by the faces' channels, nearest texel; faces +x, -x, +y, -y, +z, -z). */
+/** An RGBA32UI cube map, nearest texel, no mip levels (faces +x, -x, +y, -y, +z, -z; four channels each). */
 export function uintCubeTexture(faces: readonly UintImage[]): THREE.CubeTexture {
-  const rgba = faces[0].channels === 4;
-  const format = rgba ? THREE.RGBAIntegerFormat : THREE.RedIntegerFormat;
-  const internalFormat = rgba ? 'RGBA32UI' : 'R32UI';
   const tex = new THREE.CubeTexture(
     faces.map((image) => {
-      const face = new THREE.DataTexture(image.data, image.width, image.height, format, THREE.UnsignedIntType);
-      face.internalFormat = internalFormat;
+      const face = new THREE.DataTexture(image.data, image.width, image.height, THREE.RGBAIntegerFormat, THREE.UnsignedIntType);
+      face.internalFormat = 'RGBA32UI';
       return face;
     }),
   );
-  tex.format = format;
+  tex.format = THREE.RGBAIntegerFormat;
   tex.type = THREE.UnsignedIntType;
-  tex.internalFormat = internalFormat;
+  tex.internalFormat = 'RGBA32UI';
   tex.minFilter = THREE.NearestFilter;
   tex.magFilter = THREE.NearestFilter;
   tex.generateMipmaps = false;
@@ -102,7 +99,7 @@ export class RayTableTexture {
 
 /** GPU copies of the star data: the tile lists of lib/webgl/starTiles.ts. */
 export interface StarGpuTextures {
-  /** per tile: first entry and count, packed; a cube map whose mip levels are the tile levels */
+  /** per tile: first entry and count, packed; a cube map with one channel per tile level */
   tiles: THREE.CubeTexture;
   /** per entry: unit vector times flux, ln T */
   tileEntries: THREE.DataTexture;
